@@ -1,0 +1,110 @@
+package dev.terrace.cli;
+
+import dev.terrace.core.Cautions;
+import dev.terrace.core.CheckSummary;
+import dev.terrace.core.Diagnostic;
+import dev.terrace.core.LoadedCampaign;
+import dev.terrace.core.campaign.Campaign;
+import dev.terrace.core.campaign.Target;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Parameters;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import java.util.stream.Collectors;
+
+/** {@code terrace check CAMPAIGN}: validates the campaign and its run log and summarises the runs. */
+@Command(name = "check", mixinStandardHelpOptions = true,
+        description = {"Validate a campaign file and its run log and summarise the runs so far.",
+                "Every problem is listed with file, line and column; nothing is changed."})
+final class CheckCommand implements Callable<Integer> {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Mixin
+    GlobalOptions global = new GlobalOptions();
+
+    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
+    Path campaignFile;
+
+    @Override
+    public Integer call() throws Exception {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
+        print(lc, out, global.quiet);
+        for (Diagnostic d : lc.warnings()) {
+            err.println(d);
+        }
+        err.flush();
+        out.flush();
+        return 0;
+    }
+
+    static void print(LoadedCampaign lc, PrintWriter out, boolean quiet) {
+        Campaign c = lc.campaign();
+        CheckSummary s = CheckSummary.of(lc);
+        out.println("Campaign " + c.id() + (c.title().isBlank() ? "" : ": " + c.title()));
+        out.println("  material  " + c.material().substrate()
+                + (c.material().deposit() == null ? "" : ", deposit " + c.material().deposit())
+                + (c.surface().groupV() == null ? "" : ", group V " + c.surface().groupV())
+                + String.format(java.util.Locale.ROOT, "  (1 ML = %.5f nm, %.4g sites/cm^2)",
+                c.surface().monolayerHeightNm(), c.surface().sitesPerCm2()));
+        out.println("  models    " + (c.models().isEmpty() ? "(none: data only)" : String.join(", ", c.models())));
+        out.println("  run log   " + lc.runLog().file());
+        out.println();
+        out.println("Runs: " + s.runs() + " (" + s.ok() + " ok, " + s.failed() + " failed)");
+        out.println();
+        out.println(Format.pad("column", 18) + Format.pad("unit", 8) + Format.pad("runs", 6) + "recorded");
+        for (CheckSummary.ColumnSummary col : s.columns()) {
+            String range;
+            if (!col.counts().isEmpty()) {
+                range = col.counts().entrySet().stream().map(e -> e.getKey() + " x" + e.getValue())
+                        .collect(Collectors.joining(", "));
+            } else if (col.count() == 0) {
+                range = "(none)";
+            } else {
+                range = Format.num(col.min()) + " to " + Format.num(col.max());
+            }
+            out.println(Format.pad(col.name() + (col.isOutcome() ? " *" : ""), 18) + Format.pad(col.unit(), 8)
+                    + Format.pad(String.valueOf(col.count()), 6) + range);
+        }
+        out.println("(* measured outcome)");
+        if (!s.targets().isEmpty()) {
+            out.println();
+            out.println("Targets met so far (ok runs that measured the outcome):");
+            for (CheckSummary.TargetSummary t : s.targets()) {
+                out.println("  " + Format.pad(describe(t.target(), c), 40) + t.met() + " of " + t.measured());
+            }
+            out.println("  every target: " + (s.runsMeetingAll().isEmpty() ? "no run yet"
+                    : s.runsMeetingAll().size() + " run(s): " + String.join(", ", s.runsMeetingAll())));
+        }
+        if (!quiet) {
+            out.println();
+            out.println("Safety reminders:");
+            for (String line : Cautions.forCampaign(c)) {
+                out.println("  - " + line);
+            }
+            out.println("  " + Cautions.DEFER);
+        }
+    }
+
+    static String describe(Target t, Campaign c) {
+        if (t.isClassTarget()) {
+            return t.outcome() + " is " + t.is();
+        }
+        String unit = c.outcome(t.outcome()).map(o -> o.unit().symbol()).orElse("");
+        if (Double.isNaN(t.min())) {
+            return t.outcome() + " <= " + Format.num(t.max()) + " " + unit;
+        }
+        if (Double.isNaN(t.max())) {
+            return t.outcome() + " >= " + Format.num(t.min()) + " " + unit;
+        }
+        return t.outcome() + " " + Format.num(t.min()) + " to " + Format.num(t.max()) + " " + unit;
+    }
+
+}

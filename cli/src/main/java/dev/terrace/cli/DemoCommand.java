@@ -1,0 +1,68 @@
+package dev.terrace.cli;
+
+import dev.terrace.core.Diagnostic;
+import dev.terrace.core.LoadedCampaign;
+import dev.terrace.demo.DemoCampaign;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+/** {@code terrace demo}: copies the bundled demo campaign to a new folder and runs the job on it. */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = {"Copy the bundled demo campaign (invented data) to a new folder and check it.",
+                "Never writes into an existing folder."})
+final class DemoCommand implements Callable<Integer> {
+
+    /** Default folder for the demo copy. */
+    static final String DEFAULT_DIR = "terrace-demo";
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Mixin
+    GlobalOptions global = new GlobalOptions();
+
+    @Option(names = "--dir", paramLabel = "DIR",
+            description = "Where to put the demo copy (default: ./" + DEFAULT_DIR + ", or the next free "
+                    + DEFAULT_DIR + "-N).")
+    Path dir;
+
+    @Override
+    public Integer call() throws Exception {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        Path target = dir;
+        if (target == null) {
+            target = Path.of(DEFAULT_DIR);
+            for (int i = 2; Files.exists(target); i++) {
+                target = Path.of(DEFAULT_DIR + "-" + i);
+            }
+        } else if (Files.exists(target)) {
+            throw new CommandLine.ParameterException(spec.commandLine(),
+                    target + " exists already; the demo never writes into an existing folder");
+        }
+        Path campaign = DemoCampaign.copyTo(target);
+        out.println("Demo campaign copied to " + target.toAbsolutePath().normalize());
+        out.println("  (" + DemoCampaign.SCENARIO + ")");
+        out.println();
+        out.println("== terrace check " + campaign);
+        LoadedCampaign lc = LoadedCampaign.open(campaign, Registries.load(global, err));
+        CheckCommand.print(lc, out, global.quiet);
+        for (Diagnostic d : lc.warnings()) {
+            err.println(d);
+        }
+        out.println();
+        out.println("Files:");
+        out.println("  campaign  " + campaign.toAbsolutePath().normalize());
+        out.println("  run log   " + lc.runLog().file());
+        out.flush();
+        err.flush();
+        return 0;
+    }
+}

@@ -1,0 +1,278 @@
+package dev.terrace.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.terrace.core.LoadedCampaign;
+import dev.terrace.core.fit.FitResults.Candidate;
+import dev.terrace.core.fit.FitResults.Estimate;
+import dev.terrace.core.fit.FitResults.Excluded;
+import dev.terrace.core.fit.FitResults.FitReport;
+import dev.terrace.core.fit.FitResults.ModelFit;
+import dev.terrace.core.fit.FitResults.OutcomeFit;
+import dev.terrace.core.fit.ModelFitter;
+import dev.terrace.core.plugins.PluginRegistry;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Map;
+import java.util.concurrent.Callable;
+
+/** {@code terrace fit CAMPAIGN}: fits the campaign's growth models to its ok runs. */
+@Command(name = "fit", mixinStandardHelpOptions = true,
+        description = {"Fit the campaign's growth models to its ok runs, with 95 % intervals, held parameters",
+                "and their reasons, discrete choices by AICc, and residuals per run."})
+final class FitCommand implements Callable<Integer> {
+
+    /** Default seed of the bootstrap and multi-start. */
+    static final long DEFAULT_SEED = 7;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Mixin
+    GlobalOptions global = new GlobalOptions();
+
+    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
+    Path campaignFile;
+
+    @Option(names = "--format", defaultValue = "table", description = "table or json (default: ${DEFAULT-VALUE}).")
+    String format;
+
+    @Option(names = "--seed", defaultValue = "" + DEFAULT_SEED, description = "Seed for bootstrap and restarts (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--residuals", description = "Also list residuals per run (table format).")
+    boolean showResiduals;
+
+    @Override
+    public Integer call() throws Exception {
+        if (!format.equals("table") && !format.equals("json")) {
+            throw new CommandLine.ParameterException(spec.commandLine(), "--format must be table or json, found '" + format + "'");
+        }
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        PluginRegistry reg = Registries.load(global, err);
+        LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        if (lc.campaign().models().isEmpty()) {
+            throw new JobFailedException("campaign " + lc.campaign().id() + " lists no growth models (models: [])");
+        }
+        FitReport report = ModelFitter.fit(lc, reg, seed);
+        if (format.equals("json")) {
+            out.println(json(report));
+        } else {
+            printTable(report, out, showResiduals);
+        }
+        out.flush();
+        if (!report.fittedAnything()) {
+            StringBuilder sb = new StringBuilder("nothing could be fitted:");
+            for (ModelFit f : report.models()) {
+                sb.append("\n  ").append(f.id()).append(": ")
+                        .append(f.message().isEmpty() ? String.join("; ", f.verdict()) : f.message());
+            }
+            if (report.runs() > 0 && report.failedRuns() == report.runs()) {
+                sb.append("\n  every run in the log failed; failed runs carry no outcomes to fit");
+            }
+            throw new JobFailedException(sb.toString());
+        }
+        return 0;
+    }
+
+    static void printTable(FitReport r, PrintWriter out, boolean residuals) {
+        out.println("Fit of campaign " + r.campaignId() + ": " + r.runs() + " runs (" + r.failedRuns()
+                + " failed, not used), seed " + r.seed());
+        for (ModelFit f : r.models()) {
+            out.println();
+            out.println("== " + f.id() + "  (" + f.runsUsed() + " runs used)");
+            if (!f.message().isEmpty()) {
+                out.println("  " + f.message());
+            }
+            for (String v : f.verdict()) {
+                out.println("  * " + v);
+            }
+            if (!f.estimates().isEmpty()) {
+                out.println();
+                out.println("  " + Format.pad("parameter", 27) + Format.pad("value", 12) + Format.pad("95 % interval", 24) + "status");
+                for (Estimate e : f.estimates()) {
+                    String val = Format.num(e.value()) + (e.unit().isEmpty() ? "" : " " + e.unit());
+                    String ci = e.held() ? "-" : Format.num(e.lo()) + " to " + Format.num(e.hi());
+                    out.println("  " + Format.pad(e.name(), 27) + Format.pad(val, 12) + Format.pad(ci, 24)
+                            + (e.held() ? "held: " : "fitted: ") + e.reason());
+                }
+            }
+            if (f.candidates().size() > 1) {
+                out.println();
+                out.println("  discrete choices (AICc, lower is better):");
+                for (Candidate c : f.candidates()) {
+                    out.println("    " + (c.selected() ? "> " : "  ") + Format.pad(choices(c.choices()), 40)
+                            + (Double.isFinite(c.aicc()) ? Format.num(c.aicc()) : "n/a (too few runs)"));
+                }
+            }
+            if (!f.outcomes().isEmpty()) {
+                out.println();
+                for (OutcomeFit o : f.outcomes()) {
+                    if (o.scale().equals("class")) {
+                        out.println("  " + Format.pad(o.outcome(), 16) + "log loss " + Format.num(o.logLoss())
+                                + ", accuracy " + Math.round(100 * o.accuracy()) + " % over " + o.n() + " runs");
+                    } else {
+                        out.println("  " + Format.pad(o.outcome(), 16) + "RMSE " + Format.num(o.rmse())
+                                + (o.scale().equals("log10") ? " (log10; x" + Format.num(Math.pow(10, o.rmse())) + ")" : "")
+                                + " over " + o.n() + " runs");
+                    }
+                }
+            }
+            if (f.correlationNames().size() > 1) {
+                out.println();
+                out.println("  correlations of fitted parameters:");
+                for (int a = 0; a < f.correlationNames().size(); a++) {
+                    StringBuilder sb = new StringBuilder("    " + Format.pad(f.correlationNames().get(a), 27));
+                    for (int b = 0; b < f.correlationNames().size(); b++) {
+                        sb.append(String.format(java.util.Locale.ROOT, "%6.2f", f.correlations()[a][b]));
+                    }
+                    out.println(sb);
+                }
+            }
+            if (!f.excluded().isEmpty()) {
+                out.println();
+                out.println("  runs not used:");
+                for (Excluded x : f.excluded()) {
+                    out.println("    " + Format.pad(x.runId(), 8) + x.reason());
+                }
+            }
+            if (residuals && !f.residuals().isEmpty()) {
+                out.println();
+                out.println("  residuals (measured - predicted; log10 for log outcomes, -ln p for classes):");
+                for (var res : f.residuals()) {
+                    out.println("    " + Format.pad(res.runId(), 8) + Format.pad(res.outcome(), 16)
+                            + (res.observedClass() != null ? Format.pad(res.observedClass(), 22)
+                            : Format.pad(Format.num(res.measured()) + " vs " + Format.num(res.predicted()), 22))
+                            + Format.num(res.residual()));
+                }
+            }
+        }
+    }
+
+    static String choices(Map<String, Double> m) {
+        StringBuilder sb = new StringBuilder();
+        m.forEach((k, v) -> sb.append(sb.length() == 0 ? "" : ", ").append(k).append(' ').append(Format.num(v)));
+        return sb.toString();
+    }
+
+    static String json(FitReport r) throws Exception {
+        ObjectMapper om = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+        ObjectNode root = om.createObjectNode();
+        root.put("campaign", r.campaignId());
+        root.put("runs", r.runs());
+        root.put("runs_failed", r.failedRuns());
+        root.put("seed", r.seed());
+        ArrayNode models = root.putArray("models");
+        for (ModelFit f : r.models()) {
+            ObjectNode m = models.addObject();
+            m.put("id", f.id());
+            m.put("runs_used", f.runsUsed());
+            ArrayNode ex = m.putArray("runs_excluded");
+            for (Excluded x : f.excluded()) {
+                ex.addObject().put("run_id", x.runId()).put("reason", x.reason());
+            }
+            ObjectNode ps = m.putObject("parameters");
+            for (Estimate e : f.estimates()) {
+                ObjectNode p = ps.putObject(e.name());
+                p.put("value", e.value());
+                p.put("unit", e.unit());
+                if (e.held()) {
+                    p.putNull("ci95");
+                } else {
+                    p.putArray("ci95").add(e.lo()).add(e.hi());
+                }
+                p.put("held", e.held());
+                p.put("reason", e.reason());
+                p.put("source", e.source());
+            }
+            ObjectNode sel = m.putObject("selected");
+            f.selected().forEach((k, v) -> {
+                if (v == Math.rint(v)) {
+                    sel.put(k, (long) (double) v);
+                } else {
+                    sel.put(k, v);
+                }
+            });
+            ArrayNode cands = m.putArray("candidates");
+            for (Candidate c : f.candidates()) {
+                ObjectNode co = cands.addObject();
+                c.choices().forEach((k, v) -> {
+                    if (v == Math.rint(v)) {
+                        co.put(k, (long) (double) v);
+                    } else {
+                        co.put(k, v);
+                    }
+                });
+                if (Double.isFinite(c.aicc())) {
+                    co.put("aicc", c.aicc());
+                } else {
+                    co.putNull("aicc");
+                }
+                co.put("selected", c.selected());
+            }
+            ObjectNode fit = m.putObject("fit");
+            OutcomeFit primary = f.outcomes().stream().filter(o -> !o.scale().equals("class")).findFirst().orElse(null);
+            if (primary != null) {
+                fit.put("rmse", primary.rmse());
+                fit.put("rmse_scale", primary.scale());
+                fit.put("outcome", primary.outcome());
+            } else {
+                fit.putNull("rmse");
+                fit.putNull("rmse_scale");
+            }
+            ObjectNode per = fit.putObject("outcomes");
+            for (OutcomeFit o : f.outcomes()) {
+                ObjectNode oo = per.putObject(o.outcome());
+                oo.put("n", o.n());
+                oo.put("scale", o.scale());
+                if (o.scale().equals("class")) {
+                    oo.put("log_loss", o.logLoss());
+                    oo.put("accuracy", o.accuracy());
+                } else {
+                    oo.put("rmse", o.rmse());
+                }
+            }
+            ObjectNode corr = m.putObject("correlations");
+            for (int a = 0; a < f.correlationNames().size(); a++) {
+                ObjectNode row = corr.putObject(f.correlationNames().get(a));
+                for (int b = 0; b < f.correlationNames().size(); b++) {
+                    row.put(f.correlationNames().get(b), f.correlations()[a][b]);
+                }
+            }
+            ArrayNode res = m.putArray("residuals");
+            for (var x : f.residuals()) {
+                ObjectNode ro = res.addObject();
+                ro.put("run_id", x.runId());
+                ro.put("outcome", x.outcome());
+                if (x.observedClass() != null) {
+                    ro.put("observed", x.observedClass());
+                    ro.put("minus_log_p", x.residual());
+                } else {
+                    ro.put("measured", x.measured());
+                    if (Double.isFinite(x.predicted())) {
+                        ro.put("predicted", x.predicted());
+                        ro.put("residual", x.residual());
+                    } else {
+                        ro.putNull("predicted");
+                        ro.putNull("residual");
+                    }
+                }
+            }
+            ArrayNode v = m.putArray("verdict");
+            f.verdict().forEach(v::add);
+            if (!f.message().isEmpty()) {
+                m.put("message", f.message());
+            }
+        }
+        return om.writeValueAsString(root);
+    }
+}

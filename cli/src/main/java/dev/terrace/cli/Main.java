@@ -1,0 +1,126 @@
+package dev.terrace.cli;
+
+import dev.terrace.core.InputException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+import java.io.InputStream;
+import java.io.PrintWriter;
+import java.nio.file.FileAlreadyExistsException;
+import java.util.Properties;
+
+/**
+ * The {@code terrace} command.
+ *
+ * <p>Exit codes: 0 ok, 1 the job ran but failed, 2 bad input or usage.
+ *
+ * @since 0.1
+ */
+@Command(name = "terrace", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
+        description = {"Plans MBE growth campaigns: checks run logs, converts gauge readings, fits growth models",
+                "to your own runs and proposes the next recipes."},
+        subcommands = {InitCommand.class, CheckCommand.class, FluxCommand.class, ModelsCommand.class, FitCommand.class,
+                DemoCommand.class, CommandLine.HelpCommand.class},
+        footer = {"", "Exit codes: 0 ok, 1 the job ran but failed, 2 bad input or usage."})
+public final class Main implements Runnable {
+
+    /** Exit code: the job ran but failed. */
+    public static final int EXIT_FAILED = 1;
+    /** Exit code: bad input or usage. */
+    public static final int EXIT_INPUT = 2;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(spec.commandLine().getOut());
+    }
+
+    /**
+     * Runs the command line.
+     *
+     * @param args arguments
+     */
+    public static void main(String[] args) {
+        System.exit(execute(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args));
+    }
+
+    /**
+     * Runs a command in-process (used by the tests).
+     *
+     * @param out  standard output
+     * @param err  standard error
+     * @param args arguments
+     * @return the exit code
+     */
+    public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        quietLibraries();
+        CommandLine cl = commandLine();
+        cl.setOut(out);
+        cl.setErr(err);
+        return cl.execute(args);
+    }
+
+    /** @return the configured command line; never null */
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new Main());
+        cl.setExecutionExceptionHandler(Main::handle);
+        return cl;
+    }
+
+    private static int handle(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
+        PrintWriter err = cl.getErr();
+        boolean debug = parsed != null && parsed.expandedArgs().contains("--debug");
+        if (e instanceof InputException) {
+            ((InputException) e).diagnostics().forEach(d -> err.println(d));
+            if (debug) {
+                e.printStackTrace(err);
+            }
+            err.flush();
+            return EXIT_INPUT;
+        }
+        if (e instanceof FileAlreadyExistsException) {
+            err.println("terrace: " + ((FileAlreadyExistsException) e).getFile()
+                    + " exists already; Terrace never overwrites your files");
+            err.flush();
+            return EXIT_INPUT;
+        }
+        if (e instanceof JobFailedException) {
+            err.println("terrace: " + e.getMessage());
+            err.flush();
+            return EXIT_FAILED;
+        }
+        if (e instanceof java.io.IOException) {
+            err.println("terrace: cannot read or write a file: " + e.getMessage());
+        } else {
+            err.println("terrace: internal error: " + e + (debug ? "" : " (run again with --debug for details)"));
+        }
+        if (debug) {
+            e.printStackTrace(err);
+        }
+        err.flush();
+        return EXIT_FAILED;
+    }
+
+    private static void quietLibraries() {
+        if (System.getProperty("org.slf4j.simpleLogger.defaultLogLevel") == null) {
+            System.setProperty("org.slf4j.simpleLogger.defaultLogLevel", "error");
+        }
+    }
+
+    /** Reads the version stamped in at build time. */
+    public static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() throws Exception {
+            Properties p = new Properties();
+            try (InputStream in = Main.class.getResourceAsStream("version.properties")) {
+                if (in != null) {
+                    p.load(in);
+                }
+            }
+            return new String[] {"terrace " + p.getProperty("version", "unknown"),
+                    "GPL-3.0-or-later; Java " + System.getProperty("java.version")};
+        }
+    }
+}

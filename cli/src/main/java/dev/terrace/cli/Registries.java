@@ -1,0 +1,29 @@
+package dev.terrace.cli;
+
+import dev.terrace.core.plugins.PluginProblem;
+import dev.terrace.core.plugins.PluginRegistry;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+
+/** Builds the plugin registry from the global options and reports discovery problems. */
+final class Registries {
+    private Registries() {
+    }
+
+    static PluginRegistry load(GlobalOptions g, PrintWriter err) {
+        Path dir = g.pluginDir;
+        if (dir == null) {
+            String env = System.getenv(PluginRegistry.PLUGIN_DIR_ENV);
+            if (env != null && !env.isBlank()) {
+                dir = Path.of(env);
+            }
+        }
+        PluginRegistry r = PluginRegistry.builder().pluginDir(dir).build();
+        for (PluginProblem p : r.problems()) {
+            err.println("terrace: " + p);
+        }
+        err.flush();
+        return r;
+    }
+}

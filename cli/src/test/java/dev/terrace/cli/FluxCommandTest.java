@@ -1,0 +1,168 @@
+package dev.terrace.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import org.junit.jupiter.api.Test;
+import picocli.CommandLine;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+class FluxCommandTest {
+
+    /** Output of one in-process run. */
+    private record Run(int exitCode, String out, String err) {
+    }
+
+    private static Run run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        CommandLine cl = new CommandLine(new FluxCommand());
+        cl.setOut(new PrintWriter(out, true));
+        cl.setErr(new PrintWriter(err, true));
+        int code = cl.execute(args);
+        return new Run(code, out.toString(), err.toString());
+    }
+
+    @Test
+    void ratioPrintsTheReferenceV3RatioWithFormulaAndUncertainty() {
+        // Reference file (physics check values, section 5) [derived]: P_As4/P_Ga = 20,
+        // T_As = 600 K, T_Ga = 1200 K -> 2.318 As4 molecules and 9.27 As atoms per Ga atom.
+        Run r = run("ratio", "--group-v", "As4", "--bep-v", "1.0e-5", "--group-iii", "Ga", "--bep-iii", "5.0e-7",
+                "--t-v", "600", "--t-iii", "1200");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("2.318"), r.out());
+        assertTrue(r.out().contains("V/III atom ratio = 9.27"), r.out());
+        assertTrue(r.out().contains("sqrt(T_a*M_b/(T_b*M_a))"), r.out());
+        assertTrue(r.out().contains("about ±30 % unless your gauge is calibrated for these species"), r.out());
+        assertTrue(r.out().contains("on GaAs(001)"), "GaAs is inferred from Ga + As4: " + r.out());
+    }
+
+    @Test
+    void ratioJsonCarriesTheSameNumbers() throws Exception {
+        Run r = run("ratio", "--group-v", "As4", "--bep-v", "1.0e-5", "--group-iii", "Ga", "--bep-iii", "5.0e-7",
+                "--format", "json");
+        assertEquals(0, r.exitCode(), r.err());
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        // Defaults As4 600 K and Ga 1200 K are the reference case (section 5): 9.27 atoms per Ga.
+        assertEquals(9.27, j.get("atomRatio").asDouble(), 5e-3);
+        assertEquals(2.318, j.get("moleculeRatio").asDouble(), 6e-4);
+        assertEquals(0.30, j.get("relativeUncertainty").asDouble(), 0.0);
+        assertTrue(j.get("groupV").get("temperatureDefaulted").asBoolean());
+        assertEquals(600.0, j.get("groupV").get("sourceTemperatureK").asDouble(), 0.0);
+        // 1e-5 Torr As4 on GaAs: about 9.7 As atoms per site per s [derived], within the broad
+        // 0.3-30 band that the 0.8 ML/s growth of Heyn et al. at 1e-5 Torr suggests (section 2c).
+        assertEquals(9.69, j.get("absolute").get("groupVAtomsPerSitePerS").asDouble(), 0.01);
+    }
+
+    @Test
+    void pressureUnitChangesAbsoluteFluxButNotTheRatio() throws Exception {
+        Run torr = run("ratio", "--group-v", "As2", "--bep-v", "4e-6", "--group-iii", "In", "--bep-iii", "2e-7",
+                "--format", "json");
+        Run pa = run("ratio", "--group-v", "As2", "--bep-v", "4e-6", "--group-iii", "In", "--bep-iii", "2e-7",
+                "--unit", "Pa", "--format", "json");
+        assertEquals(0, torr.exitCode(), torr.err());
+        assertEquals(0, pa.exitCode(), pa.err());
+        ObjectMapper m = new ObjectMapper();
+        JsonNode jt = m.readTree(torr.out());
+        JsonNode jp = m.readTree(pa.out());
+        assertEquals(jt.get("atomRatio").asDouble(), jp.get("atomRatio").asDouble(), 1e-12);
+        // 1 Torr = 101325/760 Pa exactly.
+        assertEquals(101325.0 / 760.0, jt.get("absolute").get("groupVAtomsPerCm2PerS").asDouble()
+                / jp.get("absolute").get("groupVAtomsPerCm2PerS").asDouble(), 1e-9);
+    }
+
+    @Test
+    void rheedPeriodGivesTheReferenceGrowthRate() {
+        // Reference file section 5 [derived]: T_osc = 1.25 s on GaAs -> 0.8 ML/s = 0.2261 nm/s
+        // = 0.814 um/h, 5.006e14 cm^-2 s^-1.
+        Run r = run("rheed", "--period", "1.25");
+        assertEquals(0, r.exitCode(), r.err());
+        assertTrue(r.out().contains("0.8000 ML/s = 0.2261 nm/s = 0.8141 um/h"), r.out());
+        assertTrue(r.out().contains("5.0064e+14"), r.out());
+        assertTrue(r.out().contains("1/T_osc"), r.out());
+    }
+
+    @Test
+    void rheedCountedPeriodsOverASpanOnInAs() throws Exception {
+        // Reference file section 4 [derived]: on InAs 1 ML/s = 0.30291 nm/s = 1.0905 um/h.
+        Run r = run("rheed", "--periods", "8", "--span", "8.0", "--material", "InAs", "--format", "json");
+        assertEquals(0, r.exitCode(), r.err());
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        assertEquals(1.0, j.get("mlPerS").asDouble(), 1e-12);
+        assertEquals(0.30291, j.get("nmPerS").asDouble(), 5e-6);
+        assertEquals(1.0905, j.get("umPerH").asDouble(), 5e-5);
+        assertEquals("InAs", j.get("material").asText());
+    }
+
+    @Test
+    void unknownSpeciesExitsWithTwoAndListsTheValidNames() {
+        Run r = run("ratio", "--group-v", "As5", "--bep-v", "1e-5", "--group-iii", "Ga", "--bep-iii", "5e-7");
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("unknown beam species 'As5'"), r.err());
+        assertTrue(r.err().contains("As, As2, As4, Sb, Sb2, Sb4, P2, P4, Ga, In, Al"), r.err());
+        assertFalse(r.out().contains("V/III"));
+    }
+
+    @Test
+    void swappedGroupsExitWithTwo() {
+        Run r = run("ratio", "--group-v", "Ga", "--bep-v", "1e-5", "--group-iii", "As4", "--bep-iii", "5e-7");
+        assertEquals(2, r.exitCode());
+        assertTrue(r.err().contains("group-III species"), r.err());
+    }
+
+    @Test
+    void nonPositivePressureExitsWithTwo() {
+        Run zero = run("ratio", "--group-v", "As4", "--bep-v", "0", "--group-iii", "Ga", "--bep-iii", "5e-7");
+        assertEquals(2, zero.exitCode());
+        assertTrue(zero.err().contains("--bep-v"), zero.err());
+        Run negative = run("ratio", "--group-v", "As4", "--bep-v", "1e-5", "--group-iii", "Ga", "--bep-iii", "-5e-7");
+        assertEquals(2, negative.exitCode());
+        assertTrue(negative.err().contains("--bep-iii"), negative.err());
+        Run nan = run("ratio", "--group-v", "As4", "--bep-v", "NaN", "--group-iii", "Ga", "--bep-iii", "5e-7");
+        assertEquals(2, nan.exitCode());
+        // A ratio too large for a double must be refused, never printed as Infinity.
+        Run overflow = run("ratio", "--group-v", "As4", "--bep-v", "1e300", "--group-iii", "Ga", "--bep-iii", "1e-300");
+        assertEquals(2, overflow.exitCode(), overflow.out());
+        assertFalse(overflow.out().contains("Infinity"));
+        assertEquals(2, run("ratio", "--group-v", "As4", "--bep-v", "1e307", "--group-iii", "Ga", "--bep-iii", "1e-7")
+                .exitCode(), "1e307 Torr overflows on conversion to Pa");
+    }
+
+    @Test
+    void unknownUnitAndMaterialExitWithTwo() {
+        Run unit = run("ratio", "--group-v", "As4", "--bep-v", "1e-5", "--group-iii", "Ga", "--bep-iii", "5e-7",
+                "--unit", "psi");
+        assertEquals(2, unit.exitCode());
+        assertTrue(unit.err().contains("Torr"), unit.err());
+        Run material = run("rheed", "--period", "1.25", "--material", "GaN");
+        assertEquals(2, material.exitCode());
+        assertTrue(material.err().contains("unknown material 'GaN'"), material.err());
+    }
+
+    @Test
+    void rheedNeedsExactlyOneWayOfGivingThePeriod() {
+        assertEquals(2, run("rheed").exitCode());
+        assertEquals(2, run("rheed", "--periods", "5").exitCode());
+        assertEquals(2, run("rheed", "--period", "1.2", "--periods", "5", "--span", "6").exitCode());
+        assertEquals(2, run("rheed", "--periods", "0", "--span", "6").exitCode());
+        assertEquals(2, run("rheed", "--period", "-1").exitCode());
+        // 1/1e-320 overflows a double: refused rather than printed as Infinity.
+        assertEquals(2, run("rheed", "--period", "1e-320").exitCode());
+    }
+
+    @Test
+    void missingSubcommandExitsWithTwoAndHelpExitsWithZero() {
+        Run none = run();
+        assertEquals(2, none.exitCode());
+        assertTrue(none.err().contains("ratio"), none.err());
+        Run help = run("--help");
+        assertEquals(0, help.exitCode());
+        assertTrue(help.out().contains("rheed"), help.out());
+        assertEquals(0, run("ratio", "--help").exitCode());
+    }
+}

@@ -1,0 +1,125 @@
+package dev.terrace.models;
+
+import dev.terrace.spi.ModelParameter;
+import dev.terrace.spi.ParameterValues;
+import dev.terrace.spi.Surface;
+
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+
+/**
+ * Small numeric helpers shared by the plugins of this package.
+ *
+ * @since 0.1
+ */
+final class ModelSupport {
+
+    /** Kelvin at 0 °C (exact, ITS-90 definition of the Celsius scale). */
+    static final double ZERO_CELSIUS_K = 273.15;
+
+    /** Square nanometres per square centimetre. */
+    static final double NM2_PER_CM2 = 1e14;
+
+    /** Nanometres per centimetre. */
+    static final double NM_PER_CM = 1e7;
+
+    private ModelSupport() {
+    }
+
+    /**
+     * The logistic function {@code 1/(1+exp(−x))}, computed without overflow.
+     *
+     * @param x any finite or infinite number
+     * @return a value in [0, 1]
+     */
+    static double logistic(double x) {
+        if (x >= 0) {
+            return 1.0 / (1.0 + Math.exp(-x));
+        }
+        double e = Math.exp(x);
+        return e / (1.0 + e);
+    }
+
+    /**
+     * Base radius of a spherical-cap droplet holding a given number of atoms.
+     *
+     * <p>A cap of base radius r and contact angle θ has volume
+     * {@code V = (π r³/3)·(1−cos θ)²(2+cos θ)/sin³θ}, which is {@code 2π r³/3} for a hemisphere (θ = 90°).
+     *
+     * @param atoms           atoms in the droplet; positive
+     * @param atomsPerNm3     atomic number density of the liquid in nm^-3; positive
+     * @param contactAngleDeg contact angle in degrees, strictly between 0 and 180
+     * @return the base radius in nm
+     */
+    static double capBaseRadiusNm(double atoms, double atomsPerNm3, double contactAngleDeg) {
+        double volume = atoms / atomsPerNm3;
+        double t = Math.toRadians(contactAngleDeg);
+        double c = Math.cos(t);
+        double s = Math.sin(t);
+        double shape = (1 - c) * (1 - c) * (2 + c) / (s * s * s);
+        return Math.cbrt(3 * volume / (Math.PI * shape));
+    }
+
+    /**
+     * Checks that every parameter value lies inside its declared bounds.
+     *
+     * @param parameters the model's parameter definitions
+     * @param values     the values passed to predict
+     * @return a reason when a value is missing or outside its bounds, empty when all are fine
+     */
+    static Optional<String> outOfBounds(List<ModelParameter> parameters, ParameterValues values) {
+        for (ModelParameter p : parameters) {
+            Double v = values.values().get(p.name());
+            if (v == null) {
+                return Optional.of("no value given for model parameter " + p.name());
+            }
+            double slack = 1e-9 * Math.max(1.0, Math.max(Math.abs(p.min()), Math.abs(p.max())));
+            if (v < p.min() - slack || v > p.max() + slack) {
+                return Optional.of(String.format(Locale.ROOT, "model parameter %s = %s is outside its range [%s, %s]",
+                        p.name(), v, p.min(), p.max()));
+            }
+        }
+        return Optional.empty();
+    }
+
+    /**
+     * Formats a temperature for a grower.
+     *
+     * @param kelvin a temperature in K
+     * @return for example {@code "156.6 °C"}
+     */
+    static String celsius(double kelvin) {
+        return String.format(Locale.ROOT, "%.1f °C", kelvin - ZERO_CELSIUS_K);
+    }
+
+    /**
+     * Formats a number with three significant digits.
+     *
+     * @param value any finite number
+     * @return the formatted number
+     */
+    static String sig3(double value) {
+        return String.format(Locale.ROOT, "%.3g", value);
+    }
+
+    /**
+     * The melting-point guard: a reason when the deposit metal is solid at the given temperature.
+     *
+     * @param surface      the growth surface
+     * @param temperatureK the temperature of the step that assumes liquid droplets
+     * @param what         what does not apply, for example {@code "liquid-droplet scaling"}
+     * @return a reason when the deposit is known and solid, empty otherwise
+     */
+    static Optional<String> solidDeposit(Surface surface, double temperatureK, String what) {
+        if (surface.depositMetal().isEmpty() || surface.meltingPointK().isEmpty()) {
+            return Optional.empty();
+        }
+        double melt = surface.meltingPointK().getAsDouble();
+        if (temperatureK >= melt) {
+            return Optional.empty();
+        }
+        return Optional.of(surface.depositMetal().get() + " is solid below " + celsius(melt)
+                + " (recipe: " + celsius(temperatureK) + "); " + what + " does not apply");
+    }
+}

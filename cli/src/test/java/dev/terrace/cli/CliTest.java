@@ -143,4 +143,52 @@ class CliTest {
         assertEquals(2, again.code());
         assertArrayEquals(before, Files.readAllBytes(dir.resolve("runs.csv")));
     }
+
+    @Test
+    void fitPrintsATableAndTheDocumentedJson(@TempDir Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        Outcome t = run("fit", campaign.toString());
+        assertEquals(0, t.code(), t.err());
+        assertTrue(t.out().contains("== island-nucleation"), t.out());
+        assertTrue(t.out().contains("95 % interval"), t.out());
+        Outcome j = run("fit", campaign.toString(), "--format", "json");
+        assertEquals(0, j.code(), j.err());
+        var root = new com.fasterxml.jackson.databind.ObjectMapper().readTree(j.out());
+        assertEquals("ga-dots-demo", root.get("campaign").asText());
+        var m = root.get("models").get(0);
+        for (String key : List.of("id", "runs_used", "runs_excluded", "parameters", "selected", "candidates", "fit")) {
+            assertTrue(m.has(key), key);
+        }
+        var barrier = m.get("parameters").get("diffusion_barrier");
+        assertTrue(barrier.has("value") && barrier.has("unit") && barrier.has("ci95") && barrier.has("held"));
+        assertTrue(m.get("fit").has("rmse") && m.get("fit").has("rmse_scale"));
+        assertFalse(j.out().contains("NaN") || j.out().contains("Infinity"), "no NaN in JSON");
+        assertEquals(j.out(), run("fit", campaign.toString(), "--format", "json").out(), "same seed, same output");
+    }
+
+    @Test
+    void fitWithNothingToFitExitsOneWithAClearMessage(@TempDir Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        Path runs = campaign.resolveSibling("runs.csv");
+        String header = "run_id,t_drop,ga_amount,ga_rate,as_flux,t_cryst,as_source,dot_density,dot_diameter,shape,status\n";
+        // every run failed
+        Files.writeString(runs, header + "A,200,3,0.1,1e-5,200,As4,,,,failed\nB,250,3,0.1,1e-5,250,As4,,,,failed\n"
+                + "C,300,3,0.1,1e-5,300,As4,,,,failed\n");
+        Outcome o = run("fit", campaign.toString());
+        assertEquals(1, o.code(), o.out() + o.err());
+        assertTrue(o.err().contains("every run in the log failed"), o.err());
+        assertFalse(o.err().contains("\tat "), o.err());
+        // one run
+        Files.writeString(runs, header + "A,200,3,0.1,1e-5,200,As4,9e10,19,dot,ok\n");
+        o = run("fit", campaign.toString());
+        assertEquals(1, o.code());
+        assertTrue(o.err().contains("only 1 usable run"), o.err());
+        // outcomes missing
+        Files.writeString(runs, "run_id,t_drop,ga_amount,ga_rate,as_flux,t_cryst,as_source\n"
+                + "A,200,3,0.1,1e-5,200,As4\nB,250,3,0.1,1e-5,250,As4\nC,300,3,0.1,1e-5,300,As4\n");
+        o = run("fit", campaign.toString(), "--format", "json");
+        assertEquals(1, o.code());
+        assertTrue(o.err().contains("no usable run"), o.err());
+        assertFalse(o.out().contains("NaN"), o.out());
+    }
 }

@@ -1043,7 +1043,7 @@ public final class ModelFitter {
             int d = best.free.size();
             double[][] cov = d == 0 ? new double[0][0] : covariance(best);
             int nNum = (int) obs.stream().filter(o -> !o.isClass()).count();
-            int dof = (hasClass ? obs.size() : nNum) - d - (hasClass ? 0 : numericOutcomes.size());
+            int dof = (hasClass ? obs.size() : nNum) - d;
             boolean useBootstrap = d > 0 && (cov == null || dof < MIN_DOF_FOR_COVARIANCE);
             double[][] ci = new double[d][2];
             String method;

@@ -58,6 +58,11 @@ final class DemoCommand implements Callable<Integer> {
             err.println(d);
         }
         out.println();
+        out.println("== terrace fit " + campaign);
+        dev.terrace.core.plugins.PluginRegistry reg = Registries.load(global, err);
+        dev.terrace.core.fit.FitResults.FitReport fit = dev.terrace.core.fit.ModelFitter.fit(lc, reg, FitCommand.DEFAULT_SEED);
+        FitCommand.printTable(fit, out, false);
+        out.println();
         out.println("Files:");
         out.println("  campaign  " + campaign.toAbsolutePath().normalize());
         out.println("  run log   " + lc.runLog().file());

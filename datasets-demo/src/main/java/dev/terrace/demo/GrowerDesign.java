@@ -305,9 +305,11 @@ public final class GrowerDesign {
         return r;
     }
 
+    /** The largest 1, 2 or 5 times a power of ten not above {@code raw}, computed in decimal. */
     private static BigDecimal niceStep(double raw) {
-        int e = (int) Math.floor(Math.log10(raw));
-        double m = raw / Math.pow(10, e);
+        BigDecimal b = new BigDecimal(Double.toString(raw)).round(new MathContext(12)).stripTrailingZeros();
+        int e = b.precision() - b.scale() - 1;
+        double m = b.movePointLeft(e).doubleValue();
         int mant = m >= 5 ? 5 : m >= 2 ? 2 : 1;
         return BigDecimal.valueOf(mant).scaleByPowerOfTen(e);
     }

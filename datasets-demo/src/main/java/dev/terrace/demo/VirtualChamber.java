@@ -9,6 +9,8 @@ import dev.terrace.core.flux.Species;
 import dev.terrace.spi.Role;
 import dev.terrace.spi.Surface;
 
+import java.math.BigDecimal;
+import java.math.MathContext;
 import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.LinkedHashMap;
@@ -30,11 +32,32 @@ import java.util.SplittableRandom;
  * of the truth each "measurement" scatters lognormally, by {@link #DENSITY_SCATTER} for densities
  * and {@link #SIZE_SCATTER} for sizes, and some runs fail ({@link Truth.Mishaps}).
  *
+ * <p>How the settings are read, by role (all temperatures are thermocouple readings; the surface
+ * is {@link Truth#thermocoupleOffsetK()} away):
+ * <ul>
+ *   <li>{@code substrate_temperature}: the droplet-deposition (or film-growth) step;</li>
+ *   <li>{@code crystallization_temperature}: the group-V exposure of the droplets; defaults to the
+ *       substrate temperature; ramps between the two ripen the droplets and may fail;</li>
+ *   <li>{@code anneal_temperature}, {@code anneal_time}: a final anneal, which widens etched holes;</li>
+ *   <li>{@code coverage}, {@code deposition_rate}: the deposited amount and its rate;</li>
+ *   <li>{@code group_v_flux}: the true group-V atom flux, as from a calibration; or else
+ *       {@code group_v_bep}: the gauge reading, turned into a flux with
+ *       {@link BeamFlux#absolute(BeamReading)} and the chamber's own gauge error. In droplet
+ *       campaigns this flux also sets the surface reconstruction the droplets land on (the valve is
+ *       closed only just before the metal goes down);</li>
+ *   <li>{@code group_v_species}: As2, As4, ... (sticking and flux per BEP differ); defaults to
+ *       the tetramer of the campaign's group-V element;</li>
+ *   <li>{@code miscut_angle}: terrace width for step flow (films); {@code surfactant_coverage}:
+ *       lowers the diffusion barrier.</li>
+ * </ul>
+ *
  * <p>Settings a campaign does not have take documented defaults ({@code DEFAULT_*} below);
  * a categorical setting without a role and numeric settings without a role are accepted and
  * ignored. Outcome columns without a role, or with a role the chamber does not model for this
- * kind of campaign, are left empty; class outcomes get only the classes the campaign declares,
- * classes the chamber does not model having probability zero.
+ * kind of campaign, are left empty. The chamber models the morphologies dot, ring, disk and hole
+ * (droplet campaigns) and the growth modes step-flow and islands (film campaigns); a declared
+ * class it does not model has probability zero, and when the chamber sees a kind the campaign
+ * declares no class for, the class cell stays empty and the notes say what was seen.
  *
  * <p>Determinism: the same campaign, truth and seed give the same results for the same sequence
  * of calls to {@link #run(Map, Map)}. Each run draws from its own stream split off the seed's
@@ -79,8 +102,8 @@ public final class VirtualChamber {
     public static final double RING_DIAMETER_FACTOR = 1.35;
     /** Diameter of a disk over the droplet's base diameter, 2.0. Invented. */
     public static final double DISK_DIAMETER_FACTOR = 2.0;
-    /** Opening of an etched hole over the droplet's base diameter, 1.2. Invented. */
-    public static final double HOLE_DIAMETER_FACTOR = 1.2;
+    /** Opening of an etched hole over the base diameter of the droplet that drilled it, 0.8. Invented. */
+    public static final double HOLE_DIAMETER_FACTOR = 0.8;
     /**
      * Widening of a hole's diameter during an anneal above the etching onset, 0.2 nm/s (Heyn et
      * al., Nanoscale Res. Lett. 9, 285 (2014), lateral widening during long anneals; taken here
@@ -421,7 +444,8 @@ public final class VirtualChamber {
 
     private double[] coordinates(Conditions c) {
         return new double[] {surfaceK(c.dropReadK()) / 100, surfaceK(c.crystReadK()) / 100,
-                StrictMath.log10(c.groupVFlux()) - 14, StrictMath.log10(c.rateMlPerS()), c.coverageMl() / 2,
+                StrictMath.log10(c.groupVFlux()) - 14, StrictMath.log10(c.rateMlPerS()),
+                droplets ? c.coverageMl() / 2 : StrictMath.log10(1 + c.coverageMl()),
                 droplets ? StrictMath.log10(1 + c.annealS() / 60) : c.miscutDeg()};
     }
 
@@ -470,7 +494,7 @@ public final class VirtualChamber {
         kinds.put(RING, (1 - pHole) * Math.max(below2 - below1, 0));
         kinds.put(DISK, (1 - pHole) * (1 - below2));
         kinds.put(HOLE, pHole);
-        String kind = drawKind(kinds, Role.MORPHOLOGY, uClass);
+        String kind = drawKind(kinds, uClass);
 
         double baseDiameter = 2 * StrictMath.exp(lnRadius);
         double diameter;
@@ -518,12 +542,16 @@ public final class VirtualChamber {
                     break;
             }
         }
-        String note = "";
+        List<String> notes = new ArrayList<>();
         double melt = surface.depositMeltingK();
         if (Double.isFinite(melt) && tDrop < melt) {
-            note = "deposit below its melting point: solid islands, not droplets";
+            notes.add("deposit below its melting point: solid islands, not droplets");
         }
-        return new RunResult(true, numbers, classes, note);
+        String undeclared = undeclaredNote(Role.MORPHOLOGY, kind);
+        if (!undeclared.isEmpty()) {
+            notes.add(undeclared);
+        }
+        return new RunResult(true, numbers, classes, String.join("; ", notes));
     }
 
     private RunResult filmRun(Conditions c, double zDensity, double zDiameter, double zHeight, double uClass) {
@@ -545,7 +573,7 @@ public final class VirtualChamber {
         Map<String, Double> kinds = new LinkedHashMap<>();
         kinds.put(STEP_FLOW, pStep);
         kinds.put(ISLANDS, 1 - pStep);
-        String kind = drawKind(kinds, Role.GROWTH_MODE, uClass);
+        String kind = drawKind(kinds, uClass);
         boolean islands = ISLANDS.equals(kind);
         double density = StrictMath.exp(lnN + DENSITY_SCATTER * zDensity);
         double diameter = 2 * StrictMath.sqrt(FILM_ISLAND_FILLING_ML / (StrictMath.PI * StrictMath.exp(lnN))) * 1e7
@@ -581,7 +609,15 @@ public final class VirtualChamber {
                     break;
             }
         }
-        return new RunResult(true, numbers, classes, islands ? "" : "step flow: no islands to count");
+        List<String> notes = new ArrayList<>();
+        if (!islands) {
+            notes.add("step flow: no islands to count");
+        }
+        String undeclared = undeclaredNote(Role.GROWTH_MODE, kind);
+        if (!undeclared.isEmpty()) {
+            notes.add(undeclared);
+        }
+        return new RunResult(true, numbers, classes, String.join("; ", notes));
     }
 
     private double etchingProbability(Conditions c, double surfaceK) {
@@ -618,43 +654,29 @@ public final class VirtualChamber {
         }
     }
 
-    /**
-     * Draws one kind. When the campaign has a class outcome with the given role, only the kinds it
-     * declares can be drawn (the others have probability zero), unless none of them has any
-     * probability; then the draw is over every modelled kind and the class cell stays empty.
-     */
-    private String drawKind(Map<String, Double> kinds, Role classRole, double u) {
-        List<String> declared = new ArrayList<>();
-        for (OutcomeSpec o : campaign.outcomes()) {
-            if (o.role() == classRole && o.isClass()) {
-                for (String name : o.classes()) {
-                    String kind = kindOf(name);
-                    if (kind != null && !declared.contains(kind)) {
-                        declared.add(kind);
-                    }
-                }
-            }
-        }
-        Map<String, Double> allowed = new LinkedHashMap<>();
-        for (Map.Entry<String, Double> e : kinds.entrySet()) {
-            if (declared.contains(e.getKey())) {
-                allowed.put(e.getKey(), e.getValue());
-            }
-        }
-        double total = allowed.values().stream().mapToDouble(Double::doubleValue).sum();
-        Map<String, Double> from = total > 1e-12 ? allowed : kinds;
-        double sum = from.values().stream().mapToDouble(Double::doubleValue).sum();
-        double target = u * sum;
+    /** Draws one kind among all modelled kinds with their probabilities. */
+    private static String drawKind(Map<String, Double> kinds, double u) {
         double acc = 0;
         String last = null;
-        for (Map.Entry<String, Double> e : from.entrySet()) {
+        for (Map.Entry<String, Double> e : kinds.entrySet()) {
             acc += e.getValue();
             last = e.getKey();
-            if (target < acc) {
+            if (u < acc) {
                 return last;
             }
         }
         return last;
+    }
+
+    /** A note when the drawn kind has no class in a class outcome of the given role, else empty. */
+    private String undeclaredNote(Role role, String kind) {
+        for (OutcomeSpec o : campaign.outcomes()) {
+            if (o.role() == role && o.isClass()
+                    && o.classes().stream().noneMatch(c -> kind.equals(kindOf(c)))) {
+                return "saw " + kind + ", for which " + o.name() + " has no class";
+            }
+        }
+        return "";
     }
 
     /**
@@ -788,8 +810,13 @@ public final class VirtualChamber {
     }
 
     private static String fmt(double v) {
-        return new java.math.BigDecimal(v).round(new java.math.MathContext(3)).stripTrailingZeros().toString()
-                .replace("E+", "e").replace("E", "e");
+        BigDecimal b = new BigDecimal(v).round(new MathContext(3)).stripTrailingZeros();
+        double a = Math.abs(v);
+        if (a == 0 || (a >= 1e-3 && a < 1e5)) {
+            return b.toPlainString();
+        }
+        int exponent = b.precision() - b.scale() - 1;
+        return b.movePointLeft(exponent).toPlainString() + "e" + exponent;
     }
 
     // ------------------------------------------------------------------ helpers

@@ -68,7 +68,7 @@ public final class CampaignReader {
     private static final List<String> MATERIAL_KEYS = List.of("substrate", "deposit", "group_v");
     private static final List<String> PARAMETER_KEYS = List.of("unit", "min", "max", "scale", "role", "choices");
     private static final List<String> OUTCOME_KEYS = List.of("unit", "scale", "role", "classes");
-    private static final List<String> TARGET_KEYS = List.of("min", "max", "is");
+    private static final List<String> TARGET_KEYS = List.of("min", "max", "is", "maximize", "minimize");
     private static final Pattern ID = Pattern.compile("[a-z0-9]+(-[a-z0-9]+)*");
     private static final Pattern COLUMN = Pattern.compile("[A-Za-z][A-Za-z0-9_]*");
 
@@ -415,6 +415,7 @@ public final class CampaignReader {
         Map<String, OutcomeSpec> byName = new LinkedHashMap<>();
         outcomes.forEach(o -> byName.put(o.name(), o));
         Map<String, NodeTuple> entries = entries((MappingNode) n, null, "target");
+        String objectiveSeen = null;
         for (Map.Entry<String, NodeTuple> e : entries.entrySet()) {
             String name = e.getKey();
             Node key = e.getValue().getKeyNode();
@@ -448,14 +449,42 @@ public final class CampaignReader {
                 error(m.get("is").getKeyNode(), "'" + name + "' is numeric: use min and/or max, not is");
                 continue;
             }
+            Target.Goal goal = Target.Goal.WINDOW;
+            boolean goalOk = true;
+            for (String k : List.of("maximize", "minimize")) {
+                if (!m.containsKey(k)) {
+                    continue;
+                }
+                String v = scalar(m.get(k).getValueNode(), k);
+                if ("true".equals(v)) {
+                    if (goal != Target.Goal.WINDOW) {
+                        error(m.get(k).getKeyNode(), "target '" + name + "' cannot both maximize and minimize");
+                        goalOk = false;
+                    }
+                    goal = k.equals("maximize") ? Target.Goal.MAXIMIZE : Target.Goal.MINIMIZE;
+                } else if (!"false".equals(v)) {
+                    error(m.get(k).getValueNode(), k + " expects true or false, found '" + v + "'");
+                    goalOk = false;
+                }
+            }
+            if (!goalOk) {
+                continue;
+            }
             Double min = m.containsKey("min") ? number(m, "min", body, name) : Double.valueOf(Double.NaN);
             Double max = m.containsKey("max") ? number(m, "max", body, name) : Double.valueOf(Double.NaN);
             if (min == null || max == null) {
                 continue;
             }
-            if (min.isNaN() && max.isNaN()) {
-                error(body, "target '" + name + "' needs min, max or both");
+            if (min.isNaN() && max.isNaN() && goal == Target.Goal.WINDOW) {
+                error(body, "target '" + name + "' needs min, max or both (or maximize: true / minimize: true)");
                 continue;
+            }
+            if (goal != Target.Goal.WINDOW && objectiveSeen != null) {
+                error(key, "only one target may maximize or minimize; '" + objectiveSeen + "' already does");
+                continue;
+            }
+            if (goal != Target.Goal.WINDOW) {
+                objectiveSeen = name;
             }
             if (!min.isNaN() && !max.isNaN() && !(min < max)) {
                 error(m.get("min").getValueNode(), "target min (" + fmt(min) + ") must be below max (" + fmt(max) + ")");
@@ -465,7 +494,7 @@ public final class CampaignReader {
                 error(body, "'" + name + "' has scale: log, so its target bounds must be positive");
                 continue;
             }
-            out.add(new Target(name, min, max, null, pos(key)));
+            out.add(new Target(name, min, max, null, goal, pos(key)));
         }
         return out;
     }

@@ -86,8 +86,13 @@ public final class ModelFitter {
     public static final int MIN_RESIDUAL_DOF = 1;
     /** Below this many residual degrees of freedom, intervals come from the bootstrap. */
     public static final int MIN_DOF_FOR_COVARIANCE = 6;
-    /** Largest condition number of the column-normalised Jacobian of the freed parameters. */
-    public static final double MAX_CONDITION = 1e3;
+    /**
+     * Largest 1/sin(angle) between a parameter's normalised Jacobian column and the span of the
+     * parameters freed before it (the square root of its variance inflation factor): 30 frees a
+     * parameter up to a multiple correlation of about 0.9994 with the others (common practice:
+     * beyond that it carries no information of its own).
+     */
+    public static final double MAX_CONDITION = 30;
     /** A parameter whose scaled Jacobian column is smaller than this (relative) has no effect on these runs. */
     public static final double MIN_SENSITIVITY = 1e-6;
     /** Bootstrap replicates for small samples (numeric outcomes only). */
@@ -665,7 +670,7 @@ public final class ModelFitter {
                     cols.add(all.indexOf(f));
                 }
                 cols.add(k);
-                double cond = condition(jAll, cols, norms);
+                double cond = marginalCondition(jAll, cols, norms);
                 if (!(cond <= MAX_CONDITION)) {
                     String partner = mostCorrelated(jAll, k, free, all, norms);
                     cf.heldReason.put(p.name(), "cannot be told apart from " + partner + " with these runs");
@@ -674,6 +679,39 @@ public final class ModelFitter {
                 free.add(p);
             }
             cf.free = free;
+        }
+
+        /**
+         * 1 / sin(angle) between the last column and the span of the others (all normalised): how
+         * much freeing the last parameter inflates its own variance (the square root of its variance
+         * inflation factor).
+         */
+        double marginalCondition(double[][] j, List<Integer> cols, double[] norms) {
+            int last = cols.get(cols.size() - 1);
+            int n = j.length;
+            double[] v = new double[n];
+            for (int i = 0; i < n; i++) {
+                v[i] = j[i][last] / norms[last];
+            }
+            if (cols.size() == 1) {
+                return 1;
+            }
+            double[][] a = new double[n][cols.size() - 1];
+            for (int i = 0; i < n; i++) {
+                for (int c2 = 0; c2 < cols.size() - 1; c2++) {
+                    a[i][c2] = j[i][cols.get(c2)] / norms[cols.get(c2)];
+                }
+            }
+            SingularValueDecomposition svd = new SingularValueDecomposition(new Array2DRowRealMatrix(a, false));
+            RealVector coef = svd.getSolver().solve(new ArrayRealVector(v, false));
+            RealVector proj = new Array2DRowRealMatrix(a, false).operate(coef);
+            double res = 0;
+            for (int i = 0; i < n; i++) {
+                double d = v[i] - proj.getEntry(i);
+                res += d * d;
+            }
+            double sin = Math.sqrt(Math.max(res, 0));
+            return sin <= 0 ? Double.POSITIVE_INFINITY : 1 / sin;
         }
 
         double condition(double[][] j, List<Integer> cols, double[] norms) {

@@ -165,6 +165,32 @@ public final class RunLogReader {
         return parse(campaign, file, sb.toString());
     }
 
+    /**
+     * Reads a file of candidate recipes (for ranking): the same format and checks as a run log, but
+     * the {@value #RUN_ID} column is optional; without it candidates are named C1, C2, ... in file
+     * order. Outcome and status columns are allowed and ignored by ranking.
+     *
+     * @param campaign the campaign whose settings the columns name
+     * @param file     the CSV file
+     * @return the candidates as runs; never null
+     * @throws InputException when the file is missing or holds any error
+     * @throws IOException    on other read failures
+     */
+    public static RunLog readCandidates(Campaign campaign, Path file) throws IOException, InputException {
+        Objects.requireNonNull(campaign, "campaign");
+        String text;
+        try {
+            byte[] bytes = Files.readAllBytes(file);
+            text = java.nio.charset.StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes))
+                    .toString();
+        } catch (NoSuchFileException e) {
+            throw new InputException(Diagnostic.error(file, 0, 0, "candidate file not found"));
+        } catch (java.nio.charset.CharacterCodingException e) {
+            throw new InputException(Diagnostic.error(file, 0, 0, "candidate file is not UTF-8 text"));
+        }
+        return parse(campaign, file, text, true);
+    }
+
     // ------------------------------------------------------------------------------------------
 
     private enum Kind { RUN_ID, PARAMETER, OUTCOME, STATUS, DATE, PROPOSAL, NOTES, SKIPPED }
@@ -173,6 +199,10 @@ public final class RunLogReader {
     }
 
     private static RunLog parse(Campaign campaign, Path file, String text) throws InputException {
+        return parse(campaign, file, text, false);
+    }
+
+    private static RunLog parse(Campaign campaign, Path file, String text, boolean candidates) throws InputException {
         List<Diagnostic> diags = new ArrayList<>();
         CsvTokenizer.Result tokens = CsvTokenizer.tokenize(text);
         for (CsvTokenizer.Problem p : tokens.problems()) {
@@ -184,11 +214,14 @@ public final class RunLogReader {
                     + " such as: " + RunLogWriter.headerLine(campaign)));
         } else {
             CsvTokenizer.Row headerRow = tokens.rows().get(0);
-            List<Column> header = readHeader(campaign, file, headerRow, diags);
+            List<Column> header = readHeader(campaign, file, headerRow, diags, candidates);
             if (!headerRow.broken()) {
                 Map<String, Integer> firstLine = new HashMap<>();
+                int index = 0;
                 for (CsvTokenizer.Row row : tokens.rows().subList(1, tokens.rows().size())) {
-                    Run run = readRow(campaign, file, header, row, firstLine, diags);
+                    index++;
+                    Run run = readRow(campaign, file, header, row, firstLine, diags,
+                            candidates && header.stream().noneMatch(c -> c.kind() == Kind.RUN_ID) ? "C" + index : null);
                     if (run != null) {
                         runs.add(run);
                     }
@@ -200,6 +233,15 @@ public final class RunLogReader {
             throw new InputException(diags);
         }
         return new RunLog(file, runs, diags);
+    }
+
+    private static List<Column> readHeader(Campaign campaign, Path file, CsvTokenizer.Row row, List<Diagnostic> diags,
+                                           boolean candidates) {
+        List<Column> cols = readHeader(campaign, file, row, diags);
+        if (candidates) {
+            diags.removeIf(d -> d.line() == row.line() && d.message().startsWith("the header has no '" + RUN_ID + "'"));
+        }
+        return cols;
     }
 
     private static List<Column> readHeader(Campaign campaign, Path file, CsvTokenizer.Row row,
@@ -276,6 +318,11 @@ public final class RunLogReader {
     /** Checks one data row; returns the run, or null when the row has an error. */
     private static Run readRow(Campaign campaign, Path file, List<Column> header, CsvTokenizer.Row row,
                                Map<String, Integer> firstLine, List<Diagnostic> diags) {
+        return readRow(campaign, file, header, row, firstLine, diags, null);
+    }
+
+    private static Run readRow(Campaign campaign, Path file, List<Column> header, CsvTokenizer.Row row,
+                               Map<String, Integer> firstLine, List<Diagnostic> diags, String autoId) {
         if (row.broken()) {
             return null; // the tokenizer has reported the problem; the cells may have shifted
         }
@@ -294,7 +341,7 @@ public final class RunLogReader {
             return null;
         }
         int before = errorCount(diags);
-        String runId = null;
+        String runId = autoId;
         Map<String, Double> numbers = new LinkedHashMap<>();
         Map<String, String> categories = new LinkedHashMap<>();
         Run.Status status = Run.Status.OK;

@@ -114,7 +114,8 @@ public final class DesignSpace {
     }
 
     /**
-     * Encodes a recipe; numeric values outside the box map outside [0, 1] and are clamped.
+     * Encodes a recipe; numeric values outside the box map outside [0, 1] (old runs may predate
+     * today's box) and are kept there, so distances and surrogates see where they really were.
      *
      * @param numbers    numeric settings by name (campaign units)
      * @param categories categorical settings by name
@@ -127,7 +128,7 @@ public final class DesignSpace {
             if (v == null || !Double.isFinite(v) || (continuous.get(i).scale() == dev.terrace.core.campaign.Scale.LOG && v <= 0)) {
                 return null;
             }
-            x[i] = Math.max(0, Math.min(1, continuous.get(i).toUnit(v)));
+            x[i] = continuous.get(i).toUnit(v);
         }
         int[] lv = new int[categorical.size()];
         for (int j = 0; j < lv.length; j++) {

@@ -210,4 +210,20 @@ class CampaignReaderTest {
                 () -> CampaignReader.read(Path.of("/nonexistent/x.yaml"), null));
         assertTrue(e.getMessage().contains("not found"));
     }
+
+    @Test
+    void readsObjectivesWithOptionalWindows() throws Exception {
+        String base = "campaign: t\nmaterial: {substrate: GaAs}\nparameters:\n  x: {unit: s, min: 1, max: 10}\n"
+                + "outcomes:\n  y: {unit: nm}\n  z: {unit: nm}\n";
+        Campaign c = parse(base + "targets:\n  y: {maximize: true, max: 50}\n  z: {min: 1}\n");
+        Target t = c.target("y").orElseThrow();
+        assertEquals(Target.Goal.MAXIMIZE, t.goal());
+        assertTrue(t.isObjective() && t.hasWindow());
+        assertEquals(Target.Goal.MINIMIZE, parse(base + "targets:\n  y: {minimize: true}\n").target("y").orElseThrow().goal());
+        only(base + "targets:\n  y: {maximize: true}\n  z: {minimize: true}\n", "only one target may maximize or minimize");
+        only(base + "targets:\n  y: {maximize: true, minimize: true}\n", "cannot both maximize and minimize");
+        only(base + "targets:\n  y: {maximize: yes please}\n", "expects true or false");
+        assertTrue(errors(base + "targets:\n  y: {maximise: true}\n").stream()
+                .anyMatch(d -> d.message().contains("did you mean 'maximize'")));
+    }
 }

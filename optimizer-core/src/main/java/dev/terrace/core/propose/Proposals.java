@@ -1,0 +1,92 @@
+package dev.terrace.core.propose;
+
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * Value types of proposals and rankings.
+ *
+ * @since 0.1
+ */
+public final class Proposals {
+
+    private Proposals() {
+    }
+
+    /**
+     * The predictive distribution of one numeric outcome for one recipe, in the outcome's unit.
+     *
+     * @param mean   central value: the mean, or for {@code scale: log} outcomes the median 10^mu
+     * @param sd     standard deviation of a new measurement (for log outcomes the delta-method value
+     *               mean·ln(10)·sd_log10)
+     * @param lo90   lower end of the 90 % interval of a new measurement
+     * @param hi90   upper end of the 90 % interval
+     * @param inWindow probability that a new measurement lies in the target window (NaN without one)
+     */
+    public record NumericPrediction(double mean, double sd, double lo90, double hi90, double inWindow) {
+    }
+
+    /**
+     * One proposed or ranked recipe.
+     *
+     * @param id            stable identifier ("P-" and 8 hex digits of the recipe) to write in the run
+     *                      log's {@code proposal} column
+     * @param rank          1 = highest predicted yield
+     * @param yield         probability that the next run meets every target
+     * @param acquisition   the value the search maximised (optimistic yield or constrained EI)
+     * @param recipe        numeric settings (rounded, campaign units) and categorical settings
+     * @param numeric       predictions per numeric outcome
+     * @param classes       class probabilities per class outcome
+     * @param success       probability that the run succeeds at all
+     * @param nearestRun    the closest logged run, or null when there is none
+     * @param nearestDistance its distance in the scaled space (unit cube, +1 per differing choice)
+     * @param reason        one line saying why this recipe is proposed
+     * @param flags         warnings about the recipe (outside box or limits, model validity, safety)
+     * @param insideBox     true when every setting is inside its box
+     * @param keepsLimits   true when every limit holds
+     */
+    public record Proposal(String id, int rank, double yield, double acquisition, Map<String, Object> recipe,
+                           Map<String, NumericPrediction> numeric, Map<String, Map<String, Double>> classes,
+                           double success, String nearestRun, double nearestDistance, String reason,
+                           List<String> flags, boolean insideBox, boolean keepsLimits) {
+        /** Copies the contents and checks the probabilities. */
+        public Proposal {
+            Objects.requireNonNull(id);
+            recipe = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(recipe));
+            numeric = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(numeric));
+            classes = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(classes));
+            flags = List.copyOf(flags);
+            if (!(yield >= 0 && yield <= 1) || !(success >= 0 && success <= 1)) {
+                throw new IllegalArgumentException("probabilities out of range in proposal " + id);
+            }
+        }
+
+        /** @return a copy with a new rank */
+        public Proposal withRank(int r) {
+            return new Proposal(id, r, yield, acquisition, recipe, numeric, classes, success, nearestRun,
+                    nearestDistance, reason, flags, insideBox, keepsLimits);
+        }
+    }
+
+    /**
+     * A batch of proposals (or a ranking) with what was used to make it.
+     *
+     * @param campaignId  the campaign
+     * @param runsUsed    ok runs used by the surrogates
+     * @param seed        the seed
+     * @param mode        "search", "space-filling start" or "ranking"
+     * @param explore     the exploration weight used
+     * @param proposals   ranked proposals
+     * @param notes       what the grower should know (exclusions, fallbacks, model problems)
+     */
+    public record ProposalSet(String campaignId, int runsUsed, long seed, String mode, double explore,
+                              List<Proposal> proposals, List<String> notes) {
+        /** Copies the lists. */
+        public ProposalSet {
+            proposals = List.copyOf(proposals);
+            notes = List.copyOf(notes);
+        }
+    }
+}

@@ -1,0 +1,453 @@
+package dev.terrace.core.surrogate;
+
+import dev.terrace.core.space.DesignPoint;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.OptionalDouble;
+
+/**
+ * A probabilistic classifier for a class outcome of a run (for example a morphology such as dot,
+ * ring, disk or hole, or a growth mode such as step-flow or islands) that starts from a prior
+ * class-probability vector per recipe and learns from labelled runs.
+ *
+ * <p>Model: multinomial logistic regression with the log prior probabilities as an offset,
+ * P(class k | x) = softmax<sub>k</sub>(ln p0<sub>k</sub>(x) + w<sub>k</sub>&middot;f(x)), where p0
+ * is the prior (the growth-model plugin's probabilities, uniform without a plugin) and f(x) the
+ * features of the recipe: an intercept, each continuous coordinate mapped to [&minus;1, 1],
+ * optionally centred squares, and 0/1 indicators of the categorical levels. Every weight,
+ * intercepts included, carries a ridge penalty (&lambda;/2)&Vert;w&Vert;&sup2; (at least
+ * {@link #INTERCEPT_RIDGE_MIN} on the intercepts), so with no data
+ * the weights are zero and the model <em>is</em> the prior, a class never observed keeps a share
+ * of its prior probability that the penalty only lets the data shrink so far, and with many runs
+ * the data dominate. This is penalised maximum likelihood with the plugin as offset (offsets in
+ * generalised linear models: McCullagh &amp; Nelder 1989, <i>Generalized Linear Models</i>, 2nd
+ * ed.; ridge-penalised logistic regression: le Cessie &amp; van Houwelingen 1992, <i>Appl.
+ * Stat.</i> 41:191; both from memory).
+ *
+ * <p>Fitting: Newton&ndash;Raphson on the strictly convex penalised negative log-likelihood with
+ * a backtracking line search; &lambda; is chosen from {@link ClassModelSettings#ridgeGrid()} by
+ * the lowest mean held-out log loss over leave-one-out (few runs) or seeded k-fold folds; ties go
+ * to the larger &lambda;. Predictions are floored at {@link #PROBABILITY_FLOOR} and renormalised.
+ *
+ * <p>Instances are immutable.
+ *
+ * @since 0.1
+ */
+public final class ClassModel {
+
+    /**
+     * Probability floor 1e-6 applied to priors and predictions before renormalising, so that no
+     * class is ever ruled out and log losses stay finite [practice].
+     */
+    public static final double PROBABILITY_FLOOR = 1e-6;
+
+    /**
+     * Smallest ridge strength 1 on the class intercepts, whatever &lambda; cross-validation picks:
+     * a standard-normal prior on each class's log-odds shift from the prior, that is a belief
+     * that the plugin's class odds are right to within a factor e at one standard deviation. It
+     * keeps a class never seen in a few dozen runs at a few per cent rather than letting a weak
+     * &lambda; drive it towards the floor, and is negligible against a few hundred runs [practice].
+     */
+    public static final double INTERCEPT_RIDGE_MIN = 1.0;
+
+    /** Newton iterations per fit at most. */
+    private static final int MAX_NEWTON = 100;
+
+    /** Newton stops when no weight moves by more than this. */
+    private static final double STEP_TOLERANCE = 1e-9;
+
+    private final List<String> classes;
+    private final ClassModelSupport.FeatureMap features;
+    private final double[][] weights;
+    private final double ridge;
+    private final int runs;
+    private final double cvLogLoss;
+
+    private ClassModel(List<String> classes, ClassModelSupport.FeatureMap features, double[][] weights, double ridge,
+                       int runs, double cvLogLoss) {
+        this.classes = List.copyOf(classes);
+        this.features = features;
+        this.weights = weights;
+        this.ridge = ridge;
+        this.runs = runs;
+        this.cvLogLoss = cvLogLoss;
+    }
+
+    /**
+     * Fits the model with {@link ClassModelSettings#defaults()}.
+     *
+     * @param x          recipes of the labelled runs; never null, may be empty
+     * @param labels     observed class of each run, each one of {@code classes}; never null
+     * @param classes    the possible classes, distinct, at least one; never null
+     * @param priorProbs prior class probabilities per run (rows in the order of {@code classes},
+     *                   non-negative, positive sum, normalised here), or null for uniform
+     * @param seed       seed of the cross-validation folds
+     * @return the fitted model; never null
+     */
+    public static ClassModel fit(List<DesignPoint> x, List<String> labels, List<String> classes, double[][] priorProbs,
+                                 long seed) {
+        return fit(x, labels, classes, priorProbs, seed, ClassModelSettings.defaults());
+    }
+
+    /**
+     * Fits the model.
+     *
+     * @param x          recipes of the labelled runs; never null, may be empty
+     * @param labels     observed class of each run, each one of {@code classes}; never null
+     * @param classes    the possible classes, distinct, at least one; never null
+     * @param priorProbs prior class probabilities per run, or null for uniform
+     * @param seed       seed of the cross-validation folds
+     * @param settings   features and ridge grid; never null
+     * @return the fitted model; never null
+     */
+    public static ClassModel fit(List<DesignPoint> x, List<String> labels, List<String> classes, double[][] priorProbs,
+                                 long seed, ClassModelSettings settings) {
+        Objects.requireNonNull(x, "x");
+        Objects.requireNonNull(labels, "labels");
+        Objects.requireNonNull(settings, "settings");
+        checkClasses(classes);
+        if (labels.size() != x.size()) {
+            throw new IllegalArgumentException(x.size() + " recipes but " + labels.size() + " labels");
+        }
+        int k = classes.size();
+        int n = x.size();
+        Map<String, Integer> index = new HashMap<>();
+        for (int c = 0; c < k; c++) {
+            index.put(classes.get(c), c);
+        }
+        int[] y = new int[n];
+        for (int i = 0; i < n; i++) {
+            Integer c = index.get(labels.get(i));
+            if (c == null) {
+                throw new IllegalArgumentException("label '" + labels.get(i) + "' of run " + i + " is not one of " + classes);
+            }
+            y[i] = c;
+        }
+        double[][] offset = logPrior(priorProbs, n, k);
+        ClassModelSupport.FeatureMap map = ClassModelSupport.FeatureMap.of(x, settings.squaredTerms());
+        List<Double> grid = descending(settings.ridgeGrid());
+        if (n == 0) {
+            return new ClassModel(classes, map, new double[k][map.size()], grid.get(0), 0, Double.NaN);
+        }
+        double[][] f = map.map(x);
+        int[][] fl = ClassModelSupport.folds(n, settings.folds(), settings.leaveOneOutUpTo(), seed);
+        int[] fold = fl[0];
+        int folds = fl[1][0];
+        double[] loss = new double[grid.size()];
+        for (int q = 0; q < folds; q++) {
+            int[] train = ClassModelSupport.indices(fold, q, false);
+            int[] test = ClassModelSupport.indices(fold, q, true);
+            double[][] w = new double[k][map.size()];
+            for (int g = 0; g < grid.size(); g++) {
+                w = newton(f, y, offset, train, grid.get(g), w);
+                for (int i : test) {
+                    loss[g] -= Math.log(probabilities(offset[i], w, f[i])[y[i]]);
+                }
+            }
+        }
+        int best = 0;
+        for (int g = 1; g < grid.size(); g++) {
+            if (loss[g] < loss[best]) {
+                best = g;
+            }
+        }
+        int[] all = new int[n];
+        for (int i = 0; i < n; i++) {
+            all[i] = i;
+        }
+        double[][] w = newton(f, y, offset, all, grid.get(best), new double[k][map.size()]);
+        return new ClassModel(classes, map, w, grid.get(best), n, loss[best] / n);
+    }
+
+    /**
+     * Class probabilities at recipes.
+     *
+     * @param x          recipes, of the training shape (any shape when the model has no runs); never null
+     * @param priorProbs prior class probabilities per recipe, or null for uniform
+     * @return one row per recipe in the order of {@link #classes()}; rows sum to 1, entries at
+     *         least about {@link #PROBABILITY_FLOOR}; never null
+     */
+    public double[][] predict(List<DesignPoint> x, double[][] priorProbs) {
+        Objects.requireNonNull(x, "x");
+        int k = classes.size();
+        double[][] offset = logPrior(priorProbs, x.size(), k);
+        double[][] out = new double[x.size()][];
+        for (int i = 0; i < out.length; i++) {
+            if (runs == 0) {
+                out[i] = floored(exp(offset[i]));
+            } else {
+                out[i] = probabilities(offset[i], weights, features.map(x.get(i)));
+            }
+        }
+        return out;
+    }
+
+    /** @return the classes in the order of the probability columns; never null */
+    public List<String> classes() {
+        return classes;
+    }
+
+    /** @return the ridge strength &lambda; chosen (with no runs, the largest of the grid) */
+    public double ridge() {
+        return ridge;
+    }
+
+    /** @return number of labelled runs fitted */
+    public int runs() {
+        return runs;
+    }
+
+    /** @return mean held-out log loss (nats per run) at the chosen &lambda;; empty with no runs */
+    public OptionalDouble crossValidatedLogLoss() {
+        return runs == 0 ? OptionalDouble.empty() : OptionalDouble.of(cvLogLoss);
+    }
+
+    // ------------------------------------------------------------------ fitting
+
+    /** Penalised Newton&ndash;Raphson from a warm start. */
+    private static double[][] newton(double[][] f, int[] y, double[][] offset, int[] rows, double lambda,
+                                     double[][] start) {
+        int k = start.length;
+        int p = start[0].length;
+        int dim = k * p;
+        double[][] w = copy(start);
+        double obj = objective(f, y, offset, rows, lambda, w);
+        for (int it = 0; it < MAX_NEWTON; it++) {
+            double[] grad = new double[dim];
+            double[][] hess = new double[dim][dim];
+            for (int c = 0; c < k; c++) {
+                for (int j = 0; j < p; j++) {
+                    double pen = penalty(lambda, j);
+                    grad[c * p + j] = pen * w[c][j];
+                    hess[c * p + j][c * p + j] = pen;
+                }
+            }
+            for (int i : rows) {
+                double[] pi = softmax(offset[i], w, f[i]);
+                double[] fi = f[i];
+                for (int c = 0; c < k; c++) {
+                    double r = pi[c] - (y[i] == c ? 1.0 : 0.0);
+                    for (int j = 0; j < p; j++) {
+                        grad[c * p + j] += r * fi[j];
+                    }
+                    for (int e = c; e < k; e++) {
+                        double h = c == e ? pi[c] * (1 - pi[c]) : -pi[c] * pi[e];
+                        if (h == 0.0) {
+                            continue;
+                        }
+                        for (int j = 0; j < p; j++) {
+                            double hj = h * fi[j];
+                            if (hj == 0.0) {
+                                continue;
+                            }
+                            for (int l = 0; l < p; l++) {
+                                hess[c * p + j][e * p + l] += hj * fi[l];
+                            }
+                        }
+                    }
+                }
+            }
+            // only the blocks (c, e) with e >= c were accumulated: mirror them below the diagonal
+            for (int c = 0; c < k; c++) {
+                for (int e = c + 1; e < k; e++) {
+                    for (int j = 0; j < p; j++) {
+                        for (int l = 0; l < p; l++) {
+                            hess[e * p + l][c * p + j] = hess[c * p + j][e * p + l];
+                        }
+                    }
+                }
+            }
+            double[] step = ClassModelSupport.solveSpd(hess, grad);
+            double t = 1.0;
+            double[][] trial = new double[k][p];
+            double trialObj = Double.NaN;
+            double slope = 0;
+            for (int a = 0; a < dim; a++) {
+                slope += grad[a] * step[a];
+            }
+            for (int ls = 0; ls < 40; ls++) {
+                for (int c = 0; c < k; c++) {
+                    for (int j = 0; j < p; j++) {
+                        trial[c][j] = w[c][j] - t * step[c * p + j];
+                    }
+                }
+                trialObj = objective(f, y, offset, rows, lambda, trial);
+                if (trialObj <= obj - 1e-4 * t * slope) {
+                    break;
+                }
+                t *= 0.5;
+            }
+            if (!(trialObj <= obj)) {
+                break; // no descent left at double precision
+            }
+            double moved = 0;
+            for (int a = 0; a < dim; a++) {
+                moved = Math.max(moved, Math.abs(t * step[a]));
+            }
+            w = copy(trial);
+            obj = trialObj;
+            if (moved < STEP_TOLERANCE) {
+                break;
+            }
+        }
+        for (double[] row : w) {
+            ClassModelSupport.checkFinite(row, "class-model weight");
+        }
+        return w;
+    }
+
+    /** Ridge strength of feature j: the intercept (j = 0) gets at least {@link #INTERCEPT_RIDGE_MIN}. */
+    private static double penalty(double lambda, int j) {
+        return j == 0 ? Math.max(lambda, INTERCEPT_RIDGE_MIN) : lambda;
+    }
+
+    /** Penalised negative log-likelihood over the given rows. */
+    private static double objective(double[][] f, int[] y, double[][] offset, int[] rows, double lambda, double[][] w) {
+        double s = 0;
+        for (double[] row : w) {
+            for (int j = 0; j < row.length; j++) {
+                s += 0.5 * penalty(lambda, j) * row[j] * row[j];
+            }
+        }
+        for (int i : rows) {
+            double[] eta = logits(offset[i], w, f[i]);
+            s += logSumExp(eta) - eta[y[i]];
+        }
+        return s;
+    }
+
+    // ------------------------------------------------------------------ probabilities
+
+    private static double[] logits(double[] offset, double[][] w, double[] fi) {
+        double[] eta = new double[w.length];
+        for (int c = 0; c < w.length; c++) {
+            double s = offset[c];
+            for (int j = 0; j < fi.length; j++) {
+                s += w[c][j] * fi[j];
+            }
+            eta[c] = s;
+        }
+        return eta;
+    }
+
+    private static double[] softmax(double[] offset, double[][] w, double[] fi) {
+        double[] eta = logits(offset, w, fi);
+        double m = logSumExp(eta);
+        for (int c = 0; c < eta.length; c++) {
+            eta[c] = Math.exp(eta[c] - m);
+        }
+        return eta;
+    }
+
+    /** Floored and renormalised class probabilities. */
+    private static double[] probabilities(double[] offset, double[][] w, double[] fi) {
+        return floored(softmax(offset, w, fi));
+    }
+
+    static double[] floored(double[] p) {
+        double s = 0;
+        double[] out = new double[p.length];
+        for (int c = 0; c < p.length; c++) {
+            out[c] = Math.max(PROBABILITY_FLOOR, p[c]);
+            s += out[c];
+        }
+        for (int c = 0; c < p.length; c++) {
+            out[c] /= s;
+        }
+        return out;
+    }
+
+    private static double logSumExp(double[] v) {
+        double m = Double.NEGATIVE_INFINITY;
+        for (double d : v) {
+            m = Math.max(m, d);
+        }
+        double s = 0;
+        for (double d : v) {
+            s += Math.exp(d - m);
+        }
+        return m + Math.log(s);
+    }
+
+    private static double[] exp(double[] v) {
+        double[] out = new double[v.length];
+        for (int c = 0; c < v.length; c++) {
+            out[c] = Math.exp(v[c]);
+        }
+        return out;
+    }
+
+    /** ln of the floored, normalised prior; uniform when null. */
+    private static double[][] logPrior(double[][] prior, int n, int k) {
+        double[][] out = new double[n][k];
+        if (prior == null) {
+            for (double[] row : out) {
+                Arrays.fill(row, -Math.log(k));
+            }
+            return out;
+        }
+        if (prior.length != n) {
+            throw new IllegalArgumentException(n + " recipes but " + prior.length + " prior rows");
+        }
+        for (int i = 0; i < n; i++) {
+            double[] row = prior[i];
+            if (row == null || row.length != k) {
+                throw new IllegalArgumentException("prior row " + i + " needs " + k + " probabilities");
+            }
+            double s = 0;
+            for (double v : row) {
+                if (!(v >= 0) || !Double.isFinite(v)) {
+                    throw new IllegalArgumentException("prior probability of row " + i + " is negative or not finite: " + v);
+                }
+                s += v;
+            }
+            if (!(s > 0)) {
+                throw new IllegalArgumentException("prior row " + i + " sums to zero");
+            }
+            double[] norm = new double[k];
+            for (int c = 0; c < k; c++) {
+                norm[c] = row[c] / s;
+            }
+            double[] fl = floored(norm);
+            for (int c = 0; c < k; c++) {
+                out[i][c] = Math.log(fl[c]);
+            }
+        }
+        return out;
+    }
+
+    private static void checkClasses(List<String> classes) {
+        Objects.requireNonNull(classes, "classes");
+        if (classes.isEmpty()) {
+            throw new IllegalArgumentException("no classes");
+        }
+        for (String c : classes) {
+            if (c == null) {
+                throw new IllegalArgumentException("a class name is null");
+            }
+        }
+        if (new HashSet<>(classes).size() != classes.size()) {
+            throw new IllegalArgumentException("classes must be distinct: " + classes);
+        }
+    }
+
+    private static List<Double> descending(List<Double> grid) {
+        List<Double> g = new ArrayList<>(grid);
+        g.sort((a, b) -> Double.compare(b, a));
+        return g;
+    }
+
+    private static double[][] copy(double[][] a) {
+        double[][] c = new double[a.length][];
+        for (int i = 0; i < a.length; i++) {
+            c[i] = a[i].clone();
+        }
+        return c;
+    }
+}

@@ -1,0 +1,542 @@
+package dev.terrace.core.surrogate;
+
+import dev.terrace.core.space.DesignPoint;
+import smile.math.blas.UPLO;
+import smile.math.matrix.Matrix;
+import smile.regression.GaussianProcessRegression;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import java.util.SplittableRandom;
+
+/**
+ * A fitted Gaussian-process surrogate of one outcome over a design space: ARD Matérn-5/2 over the
+ * continuous settings times a fitted correlation per categorical setting ({@link GpKernel}), plus
+ * Gaussian measurement noise, around a prior mean.
+ *
+ * <p>The GP models the residual y − m(x), where m is the caller's prior mean (for example a
+ * physics model's prediction on the same scale) or, when none is given, zero. The residuals are
+ * centred on their mean (a constant offset the GP learns) and divided by their sample standard
+ * deviation; predictions undo both. The hyperparameters are fitted by maximising the log marginal
+ * likelihood (type-II maximum likelihood, Rasmussen &amp; Williams 2006, <i>Gaussian Processes for
+ * Machine Learning</i>, ch. 5) from several seeded starts; see {@link GpSettings} for the bounds
+ * and for the subset rule on large data sets. The posterior (same book, Algorithm 2.1) is
+ * evaluated by Smile's {@link GaussianProcessRegression} on a Cholesky factor built here with
+ * progressive jitter.
+ *
+ * <p>Degenerate data never produce NaN: with one run the hyperparameters are the defaults of
+ * {@link GpHyperparameters#defaults} and the residual scale is
+ * {@value #SINGLE_RUN_SCALE_FRACTION} of the outcome's magnitude; with identical residuals
+ * (no spread) the model is the constant offset with a residual scale of
+ * {@value #FLAT_SCALE_FRACTION} of the magnitude.
+ *
+ * <p>Instances are immutable and safe to share between threads.
+ *
+ * @since 0.1
+ */
+public final class GaussianProcess {
+
+    /** Points per batched Smile query; bounds the m×m joint covariance Smile builds per chunk. */
+    public static final int PREDICT_CHUNK = 256;
+
+    /**
+     * Residual scale for identical outcomes, as a fraction of the largest |y| or |m| (1 when those
+     * are all 0): the data show no spread, so the model stays near-constant with a small but
+     * nonzero uncertainty. Own choice.
+     */
+    public static final double FLAT_SCALE_FRACTION = 1e-3;
+
+    /**
+     * Residual scale for a single run, as a fraction of the largest |y| or |m| (1 when those are
+     * 0): one run says nothing about the spread, so a tenth of the magnitude is assumed. Own choice.
+     */
+    public static final double SINGLE_RUN_SCALE_FRACTION = 0.1;
+
+    /** Residual spread below this fraction of the magnitude counts as none (rounding level). */
+    static final double FLAT_TOLERANCE = 1e-12;
+
+    /** Smallest latent variance reported (standardised units), so that an sd is never exactly 0. */
+    static final double MIN_LATENT_VARIANCE = 1e-12;
+
+    private static final double LOG_2PI = Math.log(2 * Math.PI);
+
+    private final List<DesignPoint> points;
+    private final double[][] flat;
+    private final double[] z;
+    private final double[] prior;
+    private final double offset;
+    private final double scale;
+    private final GpHyperparameters hyper;
+    private final GpKernel kernel;
+    private final GpSettings settings;
+    private final GpCholesky factor;
+    private final GaussianProcessRegression<double[]> smile;
+    private final double standardisedLml;
+    private final int evaluations;
+
+    private GaussianProcess(List<DesignPoint> points, double[][] flat, double[] z, double[] prior, double offset,
+            double scale, GpHyperparameters hyper, GpSettings settings, GpCholesky factor, int evaluations) {
+        this.points = List.copyOf(points);
+        this.flat = flat;
+        this.z = z;
+        this.prior = prior;
+        this.offset = offset;
+        this.scale = scale;
+        this.hyper = hyper;
+        this.settings = settings;
+        this.kernel = GpKernel.of(hyper, settings);
+        this.factor = factor;
+        this.evaluations = evaluations;
+        double[] alpha = factor.solve(z);
+        double quad = 0;
+        for (int i = 0; i < z.length; i++) {
+            quad += z[i] * alpha[i];
+        }
+        this.standardisedLml = -0.5 * quad - factor.halfLogDet() - 0.5 * z.length * LOG_2PI;
+        this.smile = new GaussianProcessRegression<>(kernel, flat, alpha, hyper.noiseVariance() + factor.jitter(),
+                0.0, 1.0, factor.cholesky(), standardisedLml);
+        if (!Double.isFinite(standardisedLml)) {
+            throw new IllegalStateException("log marginal likelihood is not finite");
+        }
+    }
+
+    /**
+     * Fits a GP to runs: standardises the residuals, searches the hyperparameters and builds the
+     * posterior.
+     *
+     * @param x         design points of the runs, all with the same numbers of coordinates and levels
+     * @param y         outcomes on the fitting scale (for example log10 of a log outcome), finite
+     * @param priorMean prior mean m(x_i) on the same scale, finite at every run; or null or all NaN
+     *                  for a constant mean
+     * @param settings  search settings
+     * @param seed      seed of the random starts and of the subset for large data sets
+     * @return the fitted GP; never null
+     * @throws IllegalArgumentException on empty, mismatched or non-finite input
+     */
+    public static GaussianProcess fit(List<DesignPoint> x, double[] y, double[] priorMean, GpSettings settings,
+            long seed) {
+        Objects.requireNonNull(settings, "settings");
+        int n = checkRuns(x, y);
+        double[] m = priorAtRuns(priorMean, n);
+        int d = x.get(0).dimensions();
+        int c = x.get(0).levelCount();
+        double[] r = residuals(y, m);
+        double offset = mean(r);
+        double spread = n > 1 ? sampleSd(r, offset) : 0;
+        double magnitude = magnitude(y, m);
+        boolean noSpread = n == 1 || !(spread > FLAT_TOLERANCE * magnitude);
+        double scale = n == 1 ? SINGLE_RUN_SCALE_FRACTION * magnitude
+                : noSpread ? FLAT_SCALE_FRACTION * magnitude : spread;
+        double[] z = new double[n];
+        for (int i = 0; i < n; i++) {
+            z[i] = (r[i] - offset) / scale;
+        }
+        double[][] flat = encode(x);
+        GpHyperparameters h;
+        int evaluations = 0;
+        if (noSpread) {
+            h = GpHyperparameters.defaults(d, c, settings.noiseFloor());
+        } else {
+            SplittableRandom rng = new SplittableRandom(seed);
+            GpHyperparameterSearch.Result best;
+            if (n <= settings.hpoSubsetSize()) {
+                GpLikelihood lik = new GpLikelihood(flat, z, d, c);
+                best = GpHyperparameterSearch.search(lik, d, c, settings, settings.hpoStarts(),
+                        settings.maxIterations(), null, rng);
+                evaluations = best.evaluations();
+            } else {
+                int[] idx = subset(n, settings.hpoSubsetSize(), rng);
+                double[][] fs = new double[idx.length][];
+                double[] zs = new double[idx.length];
+                for (int i = 0; i < idx.length; i++) {
+                    fs[i] = flat[idx[i]];
+                    zs[i] = z[idx[i]];
+                }
+                GpLikelihood lik = new GpLikelihood(fs, zs, d, c);
+                best = GpHyperparameterSearch.search(lik, d, c, settings,
+                        Math.min(settings.hpoStarts(), settings.largeDataStarts()), settings.maxIterations(), null, rng);
+                evaluations = best.evaluations();
+                if (settings.polishIterations() > 0) {
+                    GpLikelihood all = new GpLikelihood(flat, z, d, c);
+                    best = GpHyperparameterSearch.search(all, d, c, settings, 1, settings.polishIterations(),
+                            best.theta(), rng);
+                    evaluations += best.evaluations();
+                }
+            }
+            h = GpHyperparameterSearch.hyperparameters(best.theta(), d, c);
+        }
+        return build(x, flat, z, m, offset, scale, h, settings, evaluations);
+    }
+
+    /**
+     * Builds a GP with given hyperparameters, without any search (for reusing fitted
+     * hyperparameters and for checks against worked examples).
+     *
+     * @param x           design points of the runs
+     * @param y           outcomes on the fitting scale, finite
+     * @param priorMean   prior mean at the runs, or null / all NaN for none
+     * @param h           hyperparameters (variances in standardised units when {@code standardise})
+     * @param standardise true to centre and scale the residuals as {@link #fit} does; false to
+     *                    model y − m directly (m = 0 without a prior mean), so that variances are
+     *                    in the units of y
+     * @return the GP; never null
+     * @throws IllegalArgumentException on mismatched or non-finite input
+     */
+    public static GaussianProcess withHyperparameters(List<DesignPoint> x, double[] y, double[] priorMean,
+            GpHyperparameters h, boolean standardise) {
+        int n = checkRuns(x, y);
+        if (h.dimensions() != x.get(0).dimensions() || h.categoricalCount() != x.get(0).levelCount()) {
+            throw new IllegalArgumentException("hyperparameters do not match the design points");
+        }
+        double[] m = priorAtRuns(priorMean, n);
+        double[] r = residuals(y, m);
+        double offset = 0;
+        double scale = 1;
+        if (standardise) {
+            offset = mean(r);
+            double spread = n > 1 ? sampleSd(r, offset) : 0;
+            double magnitude = magnitude(y, m);
+            boolean noSpread = n == 1 || !(spread > FLAT_TOLERANCE * magnitude);
+            scale = n == 1 ? SINGLE_RUN_SCALE_FRACTION * magnitude
+                    : noSpread ? FLAT_SCALE_FRACTION * magnitude : spread;
+        }
+        double[] z = new double[n];
+        for (int i = 0; i < n; i++) {
+            z[i] = (r[i] - offset) / scale;
+        }
+        return build(x, encode(x), z, m, offset, scale, h, GpSettings.defaults(), 0);
+    }
+
+    private static GaussianProcess build(List<DesignPoint> x, double[][] flat, double[] z, double[] prior,
+            double offset, double scale, GpHyperparameters h, GpSettings settings, int evaluations) {
+        GpKernel k = GpKernel.of(h, settings);
+        int n = z.length;
+        double[] a = new double[n * n];
+        for (int j = 0; j < n; j++) {
+            a[j + j * n] = k.k(flat[j], flat[j]) + h.noiseVariance();
+            for (int i = j + 1; i < n; i++) {
+                a[i + j * n] = k.k(flat[i], flat[j]);
+            }
+        }
+        GpCholesky f = GpCholesky.factor(a, n, h.signalVariance());
+        return new GaussianProcess(x, flat, z, prior, offset, scale, h, settings, f, evaluations);
+    }
+
+    /**
+     * Posterior predictions at a batch of points, evaluated by Smile in chunks of
+     * {@value #PREDICT_CHUNK}.
+     *
+     * @param x         points, with the same numbers of coordinates and levels as the runs
+     * @param priorMean prior mean at each point when the GP was fitted with one (finite, same
+     *                  length as x); ignored (may be null) for a constant-mean GP
+     * @return means, latent sds and the noise sd on the fitting scale; never null, all finite
+     * @throws IllegalArgumentException on mismatched or non-finite input
+     */
+    public Predictive predict(List<DesignPoint> x, double[] priorMean) {
+        int m = x.size();
+        double[] pm = priorAtQueries(priorMean, m);
+        double[] mean = new double[m];
+        double[] sd = new double[m];
+        for (int start = 0; start < m; start += PREDICT_CHUNK) {
+            int len = Math.min(PREDICT_CHUNK, m - start);
+            double[][] q = new double[len][];
+            for (int i = 0; i < len; i++) {
+                q[i] = encodeChecked(x.get(start + i));
+            }
+            GaussianProcessRegression<double[]>.JointPrediction jp = smile.query(q);
+            for (int i = 0; i < len; i++) {
+                double mu = jp.mu[i];
+                double var = jp.cov.get(i, i);
+                if (!Double.isFinite(mu) || Double.isNaN(var)) {
+                    throw new IllegalStateException("GP prediction is not finite");
+                }
+                mean[start + i] = (pm == null ? 0 : pm[start + i]) + offset + scale * mu;
+                sd[start + i] = scale * Math.sqrt(Math.max(var, MIN_LATENT_VARIANCE));
+            }
+        }
+        return new Predictive(mean, sd, noiseSd());
+    }
+
+    /**
+     * A GP with the same hyperparameters, the same centring and scaling and one more observation:
+     * a fantasy run for Kriging-believer batches (Ginsbourger, Le Riche &amp; Carraro 2010,
+     * "Kriging is well-suited to parallelize optimization"). The Cholesky factor is extended by
+     * one row in O(n²).
+     *
+     * @param x         the point
+     * @param y         the (fantasy) outcome on the fitting scale, finite
+     * @param priorMean prior mean at x when the GP uses one (finite); ignored otherwise
+     * @return the conditioned GP; never null. This GP is unchanged.
+     * @throws IllegalArgumentException on mismatched or non-finite input
+     */
+    public GaussianProcess condition(DesignPoint x, double y, double priorMean) {
+        Objects.requireNonNull(x, "x");
+        double[] v = encodeChecked(x);
+        if (!Double.isFinite(y)) {
+            throw new IllegalArgumentException("outcome must be finite: " + y);
+        }
+        if (prior != null && !Double.isFinite(priorMean)) {
+            throw new IllegalArgumentException("this GP uses a prior mean: give a finite prior mean at the new run");
+        }
+        int n = z.length;
+        double[][] f2 = new double[n + 1][];
+        System.arraycopy(flat, 0, f2, 0, n);
+        f2[n] = v;
+        double[] z2 = java.util.Arrays.copyOf(z, n + 1);
+        z2[n] = (y - (prior == null ? 0 : priorMean) - offset) / scale;
+        double[] p2 = null;
+        if (prior != null) {
+            p2 = java.util.Arrays.copyOf(prior, n + 1);
+            p2[n] = priorMean;
+        }
+        List<DesignPoint> pts = new ArrayList<>(points);
+        pts.add(x);
+        GpCholesky extended = extend(v);
+        if (extended == null) {
+            return build(pts, f2, z2, p2, offset, scale, hyper, settings, evaluations);
+        }
+        return new GaussianProcess(pts, f2, z2, p2, offset, scale, hyper, settings, extended, evaluations);
+    }
+
+    /** Extends L by one row, or returns null when the new pivot is not positive. */
+    private GpCholesky extend(double[] v) {
+        int n = z.length;
+        double[] lower = factor.lower();
+        double[] l = new double[n];
+        for (int i = 0; i < n; i++) {
+            l[i] = kernel.k(flat[i], v);
+        }
+        // forward substitution L l = k
+        for (int i = 0; i < n; i++) {
+            double s = l[i];
+            for (int j = 0; j < i; j++) {
+                s -= lower[i + j * n] * l[j];
+            }
+            l[i] = s / lower[i + i * n];
+        }
+        double pivot = kernel.k(v, v) + hyper.noiseVariance() + factor.jitter();
+        for (int i = 0; i < n; i++) {
+            pivot -= l[i] * l[i];
+        }
+        if (!(pivot > 1e-12 * hyper.signalVariance()) || !Double.isFinite(pivot)) {
+            return null;
+        }
+        int n1 = n + 1;
+        double[] a = new double[n1 * n1];
+        for (int j = 0; j < n; j++) {
+            System.arraycopy(lower, j * n + j, a, j * n1 + j, n - j);
+            a[n + j * n1] = l[j];
+        }
+        a[n + n * n1] = Math.sqrt(pivot);
+        Matrix m = new Matrix(n1, n1, n1, a).uplo(UPLO.LOWER);
+        return new GpCholesky(new Matrix.Cholesky(m), a, n1, factor.jitter());
+    }
+
+    /** @return the hyperparameters (variances in standardised units); never null */
+    public GpHyperparameters hyperparameters() {
+        return hyper;
+    }
+
+    /**
+     * The log marginal likelihood of the residuals on the fitting scale: Rasmussen &amp; Williams
+     * 2006 eq. 2.30 on the standardised residuals minus n·ln {@link #residualScale()}.
+     *
+     * @return log p(y | X, hyperparameters); finite
+     */
+    public double logMarginalLikelihood() {
+        return standardisedLml - z.length * Math.log(scale);
+    }
+
+    /** @return number of runs (including fantasy runs added by {@link #condition}) */
+    public int n() {
+        return z.length;
+    }
+
+    /** @return the runs' design points; never null, unmodifiable */
+    public List<DesignPoint> points() {
+        return points;
+    }
+
+    /** @return the constant offset added to the prior mean (the residuals' mean) */
+    public double residualMean() {
+        return offset;
+    }
+
+    /** @return the scale dividing the residuals (their sample sd, or the fallbacks above); positive */
+    public double residualScale() {
+        return scale;
+    }
+
+    /** @return true when the GP was fitted around a caller's prior mean, false for a constant mean */
+    public boolean usesPriorMean() {
+        return prior != null;
+    }
+
+    /** @return standard deviation of a measurement's noise on the fitting scale */
+    public double noiseSd() {
+        return scale * Math.sqrt(hyper.noiseVariance());
+    }
+
+    /** @return the settings used for the fit; never null */
+    public GpSettings settings() {
+        return settings;
+    }
+
+    /** @return the diagonal jitter that the Cholesky factor needed (standardised units), 0 if none */
+    double jitter() {
+        return factor.jitter();
+    }
+
+    /** @return likelihood evaluations spent in the hyperparameter search */
+    int evaluations() {
+        return evaluations;
+    }
+
+    @Override
+    public String toString() {
+        return "GaussianProcess[n=" + n() + ", " + hyper + ", offset=" + offset + ", scale=" + scale + "]";
+    }
+
+    // ---------------------------------------------------------------- input handling
+
+    private static int checkRuns(List<DesignPoint> x, double[] y) {
+        Objects.requireNonNull(x, "x");
+        Objects.requireNonNull(y, "y");
+        if (x.isEmpty()) {
+            throw new IllegalArgumentException("at least one run is needed");
+        }
+        if (x.size() != y.length) {
+            throw new IllegalArgumentException("runs and outcomes differ in number: " + x.size() + " vs " + y.length);
+        }
+        int d = x.get(0).dimensions();
+        int c = x.get(0).levelCount();
+        for (int i = 0; i < y.length; i++) {
+            DesignPoint p = Objects.requireNonNull(x.get(i), "design point");
+            if (p.dimensions() != d || p.levelCount() != c) {
+                throw new IllegalArgumentException("run " + i + " has another number of settings");
+            }
+            if (!Double.isFinite(y[i])) {
+                throw new IllegalArgumentException("outcome " + i + " is not finite: " + y[i]);
+            }
+        }
+        return y.length;
+    }
+
+    private static double[] priorAtRuns(double[] priorMean, int n) {
+        if (priorMean == null) {
+            return null;
+        }
+        if (priorMean.length != n) {
+            throw new IllegalArgumentException("prior mean has " + priorMean.length + " values for " + n + " runs");
+        }
+        boolean allNaN = true;
+        for (double v : priorMean) {
+            allNaN &= Double.isNaN(v);
+        }
+        if (allNaN) {
+            return null;
+        }
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(priorMean[i])) {
+                throw new IllegalArgumentException("prior mean must be finite at every run or NaN at all: run " + i);
+            }
+        }
+        return priorMean.clone();
+    }
+
+    private double[] priorAtQueries(double[] priorMean, int m) {
+        if (prior == null) {
+            return null;
+        }
+        if (priorMean == null || priorMean.length != m) {
+            throw new IllegalArgumentException("this GP uses a prior mean: give one finite value per point");
+        }
+        for (double v : priorMean) {
+            if (!Double.isFinite(v)) {
+                throw new IllegalArgumentException("prior mean must be finite at every point");
+            }
+        }
+        return priorMean;
+    }
+
+    private double[] encodeChecked(DesignPoint p) {
+        if (p.dimensions() != hyper.dimensions() || p.levelCount() != hyper.categoricalCount()) {
+            throw new IllegalArgumentException("point has another number of settings than the runs: " + p);
+        }
+        return GpKernel.encode(p);
+    }
+
+    private static double[][] encode(List<DesignPoint> x) {
+        double[][] f = new double[x.size()][];
+        for (int i = 0; i < f.length; i++) {
+            f[i] = GpKernel.encode(x.get(i));
+        }
+        return f;
+    }
+
+    private static double[] residuals(double[] y, double[] m) {
+        double[] r = new double[y.length];
+        for (int i = 0; i < r.length; i++) {
+            r[i] = y[i] - (m == null ? 0 : m[i]);
+            if (!Double.isFinite(r[i])) {
+                throw new IllegalArgumentException("outcome minus prior mean overflows at run " + i);
+            }
+        }
+        return r;
+    }
+
+    /** Mean, summed as v/n so that values near the double range cannot overflow. */
+    private static double mean(double[] a) {
+        double s = 0;
+        for (double v : a) {
+            s += v / a.length;
+        }
+        return s;
+    }
+
+    /** Sample sd (n − 1), on values divided by their largest magnitude so that squares cannot overflow. */
+    private static double sampleSd(double[] a, double mean) {
+        double big = 0;
+        for (double v : a) {
+            big = Math.max(big, Math.abs(v - mean));
+        }
+        if (!(big > 0) || !Double.isFinite(big)) {
+            return 0;
+        }
+        double s = 0;
+        for (double v : a) {
+            double u = (v - mean) / big;
+            s += u * u;
+        }
+        return big * Math.sqrt(s / (a.length - 1));
+    }
+
+    private static double magnitude(double[] y, double[] m) {
+        double mag = 0;
+        for (int i = 0; i < y.length; i++) {
+            mag = Math.max(mag, Math.abs(y[i]));
+            if (m != null) {
+                mag = Math.max(mag, Math.abs(m[i]));
+            }
+        }
+        return mag > 0 && Double.isFinite(mag) ? mag : 1.0;
+    }
+
+    /** Seeded partial Fisher–Yates draw of k distinct indices from n, in increasing order. */
+    private static int[] subset(int n, int k, SplittableRandom rng) {
+        int[] idx = new int[n];
+        for (int i = 0; i < n; i++) {
+            idx[i] = i;
+        }
+        for (int i = 0; i < k; i++) {
+            int j = i + rng.nextInt(n - i);
+            int t = idx[i];
+            idx[i] = idx[j];
+            idx[j] = t;
+        }
+        int[] out = java.util.Arrays.copyOf(idx, k);
+        java.util.Arrays.sort(out);
+        return out;
+    }
+}

@@ -1,0 +1,193 @@
+package dev.terrace.core.surrogate;
+
+import dev.terrace.core.space.DesignPoint;
+import org.junit.jupiter.api.Test;
+import smile.regression.GaussianProcessRegression;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+class GaussianProcessHpoTest {
+
+    // Hartmann-6 (Dixon & Szego 1978), coefficients as listed in search-check-values section 1.4.
+    private static final double[] ALPHA = {1.0, 1.2, 3.0, 3.2};
+    private static final double[][] A = {
+        {10, 3, 17, 3.5, 1.7, 8}, {0.05, 10, 17, 0.1, 8, 14}, {3, 3.5, 1.7, 10, 17, 8}, {17, 8, 0.05, 10, 0.1, 14}};
+    private static final double[][] P = {
+        {1312, 1696, 5569, 124, 8283, 5886}, {2329, 4135, 8307, 3736, 1004, 9991},
+        {2348, 1451, 3522, 2883, 3047, 6650}, {4047, 8828, 8732, 5743, 1091, 381}};
+
+    private static double hartmann6(double[] x) {
+        double s = 0;
+        for (int i = 0; i < 4; i++) {
+            double e = 0;
+            for (int j = 0; j < 6; j++) {
+                double u = x[j] - P[i][j] * 1e-4;
+                e += A[i][j] * u * u;
+            }
+            s += ALPHA[i] * Math.exp(-e);
+        }
+        return -s;
+    }
+
+    @Test
+    void hartmannTranscriptionMatchesItsCheckValue() {
+        // search-check-values section 1.4 [C]: f(0.5^6) = -0.5053149917022333.
+        assertEquals(-0.5053149917022333, hartmann6(new double[] {0.5, 0.5, 0.5, 0.5, 0.5, 0.5}), 1e-15);
+    }
+
+    @Test
+    void searchRecoversTheLengthScalesOfDataDrawnFromAKnownGp() {
+        // Data drawn from a GP prior with l = (0.15, 0.6), sigma_f^2 = 1, sigma_n^2 = 1e-4 at 120
+        // random points; maximum likelihood should return l within a factor 1.5 (short scale) and 2
+        // (long scale, less identifiable) [CP tolerance for type-II ML on ~100 points].
+        for (long seed = 1; seed <= 3; seed++) {
+            SplittableRandom r = new SplittableRandom(seed);
+            int n = 120;
+            List<DesignPoint> x = new ArrayList<>();
+            for (int i = 0; i < n; i++) {
+                x.add(new DesignPoint(new double[] {r.nextDouble(), r.nextDouble()}, new int[0]));
+            }
+            GpHyperparameters truth = new GpHyperparameters(1, new double[] {0.15, 0.6}, new double[0], 1e-4);
+            double[] y = sampleFromPrior(x, truth, r);
+            GaussianProcess gp = GaussianProcess.fit(x, y, null, GpSettings.defaults(), seed);
+            double l0 = gp.hyperparameters().lengthScale(0);
+            double l1 = gp.hyperparameters().lengthScale(1);
+            assertTrue(l0 > 0.15 / 1.5 && l0 < 0.15 * 1.5, "seed " + seed + ": l0 = " + l0 + " vs 0.15");
+            assertTrue(l1 > 0.6 / 2 && l1 < 0.6 * 2, "seed " + seed + ": l1 = " + l1 + " vs 0.6");
+        }
+    }
+
+    @Test
+    void searchRecoversTheNoiseOfASmoothFunction() {
+        // sin(6x) + N(0, 0.1^2) on 50 points: the fitted noise sd should be within 30 % of 0.1 [CP].
+        SplittableRandom r = new SplittableRandom(5);
+        List<DesignPoint> x = new ArrayList<>();
+        double[] y = new double[50];
+        for (int i = 0; i < 50; i++) {
+            x.add(new DesignPoint(new double[] {r.nextDouble()}, new int[0]));
+            y[i] = Math.sin(6 * x.get(i).x(0)) + 0.1 * r.nextGaussian();
+        }
+        GaussianProcess gp = GaussianProcess.fit(x, y, null, GpSettings.defaults(), 7);
+        assertEquals(0.1, gp.noiseSd(), 0.03, "noise sd, true value 0.1");
+    }
+
+    @Test
+    void likelihoodIsAtLeastThatOfSmilesOwnSearch() {
+        // Reference library: Smile 3.1.1 GaussianProcessRegression.fit with its own search
+        // (maxIter 100, tol 1e-5), same kernel, same standardised data, normalize = false. Its L is
+        // the log marginal likelihood at its optimum; ours must not be lower.
+        for (long seed = 1; seed <= 3; seed++) {
+            SplittableRandom r = new SplittableRandom(seed);
+            int n = 60;
+            List<DesignPoint> x = new ArrayList<>();
+            double[] y = new double[n];
+            for (int i = 0; i < n; i++) {
+                double[] v = new double[6];
+                for (int k = 0; k < 6; k++) {
+                    v[k] = r.nextDouble();
+                }
+                x.add(new DesignPoint(v, new int[0]));
+                y[i] = hartmann6(v) + 0.05 * r.nextGaussian();
+            }
+            double[] z = standardise(y);
+            double[][] flat = new double[n][];
+            for (int i = 0; i < n; i++) {
+                flat[i] = GpKernel.encode(x.get(i));
+            }
+            GaussianProcessRegression<double[]> smile = GaussianProcessRegression.fit(flat, z,
+                    GpKernel.of(GpHyperparameters.defaults(6, 0, GpSettings.DEFAULT_NOISE_FLOOR)), 0.01, false, 1e-5, 100);
+            GaussianProcess ours = GaussianProcess.fit(x, z, null, GpSettings.defaults(), seed);
+            assertTrue(ours.logMarginalLikelihood() >= smile.L - 1e-6,
+                    "seed " + seed + ": ours " + ours.logMarginalLikelihood() + " vs Smile " + smile.L);
+        }
+    }
+
+    @Test
+    void subsetRuleForLargeDataReachesTheFullSearchLikelihood() {
+        // The documented large-data rule (search on a subset, polish on all runs) must end within
+        // 0.5 log units of the full search; here the subset is forced by a small hpoSubsetSize.
+        SplittableRandom r = new SplittableRandom(1);
+        int n = 150;
+        List<DesignPoint> x = new ArrayList<>();
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            double[] v = {r.nextDouble(), r.nextDouble(), r.nextDouble()};
+            x.add(new DesignPoint(v, new int[0]));
+            y[i] = Math.sin(4 * v[0]) + v[1] * v[1] + 0.3 * v[2] + 0.05 * r.nextGaussian();
+        }
+        GaussianProcess full = GaussianProcess.fit(x, y, null, GpSettings.defaults(), 1);
+        GpSettings small = new GpSettings(8, 100, GpSettings.DEFAULT_NOISE_FLOOR, 0.01, 10, 50, 4, 15);
+        GaussianProcess sub = GaussianProcess.fit(x, y, null, small, 1);
+        assertEquals(n, sub.n());
+        assertTrue(sub.logMarginalLikelihood() > full.logMarginalLikelihood() - 0.5,
+                sub.logMarginalLikelihood() + " vs " + full.logMarginalLikelihood());
+        assertTrue(sub.evaluations() < full.evaluations(), "the subset search does less work");
+    }
+
+    @Test
+    void hyperparametersStayInsideTheirBounds() {
+        // A near-constant function pushes length scales to the upper bound and noise to the floor.
+        List<DesignPoint> x = new ArrayList<>();
+        double[] y = new double[10];
+        for (int i = 0; i < 10; i++) {
+            x.add(new DesignPoint(new double[] {i / 9.0, (i * 7 % 10) / 9.0}, new int[0]));
+            y[i] = 2 * x.get(i).x(0);
+        }
+        GpSettings s = GpSettings.defaults();
+        GpHyperparameters h = GaussianProcess.fit(x, y, null, s, 3).hyperparameters();
+        for (double l : h.lengthScales()) {
+            assertTrue(l >= s.lengthScaleMin() * (1 - 1e-9) && l <= s.lengthScaleMax() * (1 + 1e-9), "l = " + l);
+        }
+        assertTrue(h.noiseVariance() >= s.noiseFloor() * (1 - 1e-9) && h.noiseVariance() <= GpSettings.NOISE_VARIANCE_MAX);
+        assertTrue(h.signalVariance() >= GpSettings.SIGNAL_VARIANCE_MIN && h.signalVariance() <= GpSettings.SIGNAL_VARIANCE_MAX);
+        assertTrue(h.lengthScale(1) > h.lengthScale(0), "x2 has no effect, so its length scale is longer");
+    }
+
+    private static double[] standardise(double[] y) {
+        double m = 0;
+        for (double v : y) {
+            m += v / y.length;
+        }
+        double s = 0;
+        for (double v : y) {
+            s += (v - m) * (v - m);
+        }
+        s = Math.sqrt(s / (y.length - 1));
+        double[] z = new double[y.length];
+        for (int i = 0; i < y.length; i++) {
+            z[i] = (y[i] - m) / s;
+        }
+        return z;
+    }
+
+    /** y = L e with K + sigma_n^2 I = L L^T and e standard normal (R&W 2006, sec. A.2). */
+    private static double[] sampleFromPrior(List<DesignPoint> x, GpHyperparameters h, SplittableRandom r) {
+        int n = x.size();
+        GpKernel k = GpKernel.of(h);
+        double[] a = new double[n * n];
+        for (int j = 0; j < n; j++) {
+            for (int i = j; i < n; i++) {
+                a[i + j * n] = k.k(GpKernel.encode(x.get(i)), GpKernel.encode(x.get(j))) + (i == j ? h.noiseVariance() : 0);
+            }
+        }
+        double[] l = GpCholesky.factor(a, n, 1).lower();
+        double[] e = new double[n];
+        for (int i = 0; i < n; i++) {
+            e[i] = r.nextGaussian();
+        }
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            double s = 0;
+            for (int j = 0; j <= i; j++) {
+                s += l[i + j * n] * e[j];
+            }
+            y[i] = s;
+        }
+        return y;
+    }
+}

@@ -63,7 +63,15 @@ final class DemoCommand implements Callable<Integer> {
         dev.terrace.core.fit.FitResults.FitReport fit = dev.terrace.core.fit.ModelFitter.fit(lc, reg, FitCommand.DEFAULT_SEED);
         FitCommand.printTable(fit, out, false);
         out.println();
+        out.println("== terrace propose " + campaign);
+        dev.terrace.core.propose.ProposeSettings ps = dev.terrace.core.propose.ProposeSettings.defaults();
+        dev.terrace.core.propose.Proposals.ProposalSet set = dev.terrace.core.propose.Proposer.propose(lc, reg, ps);
+        out.print(ProposalOutput.table(set, lc.campaign()));
+        Path proposals = target.resolve("proposals.json");
+        dev.terrace.core.io.SafeFiles.writeNew(proposals, ProposalOutput.json(set));
+        out.println();
         out.println("Files:");
+        out.println("  proposals " + proposals.toAbsolutePath().normalize());
         out.println("  campaign  " + campaign.toAbsolutePath().normalize());
         out.println("  run log   " + lc.runLog().file());
         out.flush();

@@ -23,6 +23,21 @@ final class Format {
         return s;
     }
 
+    /** A setting as a grower writes it: the shortest decimal that round-trips, e.g. 253, 0.0278, 1e-4, 2.5e-6. */
+    static String setting(double v) {
+        if (!Double.isFinite(v)) {
+            return "-";
+        }
+        java.math.BigDecimal b = new java.math.BigDecimal(Double.toString(v)).stripTrailingZeros();
+        double a = Math.abs(v);
+        if (a != 0 && (a < 1e-3 || a >= 1e6)) {
+            int exp = b.precision() - b.scale() - 1;
+            java.math.BigDecimal mant = b.movePointLeft(exp).stripTrailingZeros();
+            return mant.toPlainString() + "e" + exp;
+        }
+        return b.toPlainString();
+    }
+
     static String pad(String s, int w) {
         if (s.length() >= w) {
             return s + " ";

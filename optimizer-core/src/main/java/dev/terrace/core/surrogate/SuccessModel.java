@@ -21,10 +21,11 @@ import java.util.OptionalDouble;
  * log-density &alpha; ln &sigma;(b) + &beta; ln(1 &minus; &sigma;(b)) is exactly the log-likelihood
  * of m pseudo-runs at the centre of which a fraction r succeeded (the conjugate reading of the
  * beta prior as prior counts: Gelman et al., <i>Bayesian Data Analysis</i>, 3rd ed., 2013, ch. 2;
- * from memory). Consequences: with no runs the model predicts r everywhere; with only successes
- * the rate at the centre is (n + &alpha;)/(n + m), high but below 1; with only failures it is
- * &alpha;/(n + m), low but above 0; and a cluster of failures in one corner tilts w so that the
- * probability drops there.
+ * from memory). Consequences: with no runs the model predicts r everywhere; for s successes
+ * among n runs all at the centre it predicts (s + &alpha;)/(n + m), the posterior mean of the
+ * conjugate beta&ndash;binomial model; so with only successes the rate stays high but below 1, with
+ * only failures low but above 0 (about these values when the runs are spread out); and a
+ * cluster of failures in one corner tilts w so that the probability drops there.
  *
  * <p>Fitting: Newton&ndash;Raphson with a backtracking line search on the strictly convex
  * penalised negative log-likelihood. Predictions are clamped to

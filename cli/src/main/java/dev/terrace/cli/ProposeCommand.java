@@ -1,0 +1,70 @@
+package dev.terrace.cli;
+
+import dev.terrace.core.LoadedCampaign;
+import dev.terrace.core.plugins.PluginRegistry;
+import dev.terrace.core.propose.ProposeSettings;
+import dev.terrace.core.propose.Proposer;
+import dev.terrace.core.propose.Proposals.ProposalSet;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+
+/** {@code terrace propose CAMPAIGN}: the next batch of recipes, ranked by predicted yield. */
+@Command(name = "propose", mixinStandardHelpOptions = true,
+        description = {"Propose the next batch of growth runs most likely to meet the campaign's targets,",
+                "inside its boxes and limits, ranked by predicted yield. The run log is never changed."})
+final class ProposeCommand implements Callable<Integer> {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Mixin
+    GlobalOptions global = new GlobalOptions();
+
+    @Mixin
+    OutputOptions output = new OutputOptions();
+
+    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
+    Path campaignFile;
+
+    @Option(names = "--batch", defaultValue = "" + ProposeSettings.DEFAULT_BATCH,
+            description = "How many recipes to propose (default: ${DEFAULT-VALUE}).")
+    int batch;
+
+    @Option(names = "--seed", defaultValue = "" + ProposeSettings.DEFAULT_SEED,
+            description = "Seed; the same seed gives the same proposals (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--explore", defaultValue = "" + ProposeSettings.DEFAULT_EXPLORE,
+            description = {"Exploration weight: 0 proposes the highest predicted yield; larger values favour",
+                    "recipes whose outcome is uncertain but could meet spec (default: ${DEFAULT-VALUE})."})
+    double explore;
+
+    @Option(names = "--no-physics", description = "Switch the growth models off (a pure Gaussian process).")
+    boolean noPhysics;
+
+    @Override
+    public Integer call() throws Exception {
+        output.check(spec);
+        if (batch < 1 || batch > 100) {
+            throw new CommandLine.ParameterException(spec.commandLine(), "--batch must be 1 to 100, found " + batch);
+        }
+        if (!(explore >= 0) || !Double.isFinite(explore)) {
+            throw new CommandLine.ParameterException(spec.commandLine(), "--explore must be a number >= 0");
+        }
+        PrintWriter err = spec.commandLine().getErr();
+        PluginRegistry reg = Registries.load(global, err);
+        LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        ProposeSettings s = ProposeSettings.defaults().withBatch(batch).withSeed(seed).withExplore(explore)
+                .withPhysics(!noPhysics);
+        ProposalSet set = Proposer.propose(lc, reg, s);
+        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
+        return 0;
+    }
+}

@@ -1,0 +1,404 @@
+package dev.terrace.core.propose;
+
+import dev.terrace.core.LoadedCampaign;
+import dev.terrace.core.campaign.Campaign;
+import dev.terrace.core.campaign.OutcomeSpec;
+import dev.terrace.core.campaign.Scale;
+import dev.terrace.core.fit.FitResults.FitReport;
+import dev.terrace.core.fit.ModelFitter;
+import dev.terrace.core.model.ModelChain;
+import dev.terrace.core.model.RecipeConverter;
+import dev.terrace.core.plugins.PluginRegistry;
+import dev.terrace.core.runlog.Run;
+import dev.terrace.core.space.DesignPoint;
+import dev.terrace.core.space.DesignSpace;
+import dev.terrace.core.surrogate.ClassModel;
+import dev.terrace.core.surrogate.GaussianProcess;
+import dev.terrace.core.surrogate.GpSettings;
+import dev.terrace.core.surrogate.Predictive;
+import dev.terrace.core.surrogate.SuccessModel;
+import dev.terrace.spi.Conditions;
+import dev.terrace.spi.Prediction;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Everything Terrace has learned about one campaign, ready to predict new recipes: the growth
+ * models with their fitted parameters (the physics prior), one Gaussian process per numeric
+ * outcome on the residual the physics misses, a classifier per class outcome that starts from the
+ * models' class probabilities, and a success-probability model fitted to ok and failed runs.
+ *
+ * <p>Prior mean: where a campaign model validly predicts an outcome for a run, the GP models
+ * {@code y - prediction}; at runs where no model gives a valid prediction the prior is the mean of
+ * the measured values (a constant), both when training and when predicting.
+ *
+ * @since 0.1
+ */
+public final class CampaignSurrogate {
+
+    /** Spread assumed for a log10 outcome nobody has measured yet (0.5 dex: a factor of 3). */
+    public static final double UNMEASURED_LOG_SD = 0.5;
+    /** Relative spread assumed for a linear outcome nobody has measured yet. */
+    public static final double UNMEASURED_RELATIVE_SD = 0.5;
+
+    /** Predictions for a batch of points, on each outcome's fitting scale (log10 for log outcomes). */
+    public record Evaluation(List<DesignPoint> points, Map<String, double[]> mean, Map<String, double[]> sdLatent,
+                             Map<String, Double> noiseSd, Map<String, double[][]> classProbs, double[] success,
+                             List<List<String>> validity) {
+    }
+
+    private final LoadedCampaign lc;
+    private final DesignSpace space;
+    private final ModelChain chain;
+    private final FitReport fit;
+    private final Map<String, GaussianProcess> gps;
+    private final Map<String, Double> priorFill;
+    private final Map<String, Boolean> physicsPrior;
+    private final Map<String, ClassModel> classModels;
+    private final SuccessModel success;
+    private final List<DesignPoint> runPoints;
+    private final List<Run> encodedRuns;
+    private final List<String> notes;
+    private final int runsUsed;
+
+    private CampaignSurrogate(LoadedCampaign lc, DesignSpace space, ModelChain chain, FitReport fit,
+                              Map<String, GaussianProcess> gps, Map<String, Double> priorFill,
+                              Map<String, Boolean> physicsPrior, Map<String, ClassModel> classModels,
+                              SuccessModel success, List<DesignPoint> runPoints, List<Run> encodedRuns,
+                              List<String> notes, int runsUsed) {
+        this.lc = lc;
+        this.space = space;
+        this.chain = chain;
+        this.fit = fit;
+        this.gps = gps;
+        this.priorFill = priorFill;
+        this.physicsPrior = physicsPrior;
+        this.classModels = classModels;
+        this.success = success;
+        this.runPoints = runPoints;
+        this.encodedRuns = encodedRuns;
+        this.notes = notes;
+        this.runsUsed = runsUsed;
+    }
+
+    /**
+     * Fits everything.
+     *
+     * @param lc         the campaign and its runs
+     * @param registry   the plugins
+     * @param usePhysics false to switch the growth models off (a pure GP, for ablations)
+     * @param seed       seed of every random choice
+     * @return the surrogate; never null
+     */
+    public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed) {
+        Campaign c = lc.campaign();
+        DesignSpace space = DesignSpace.of(c);
+        List<String> notes = new ArrayList<>();
+        FitReport fit = null;
+        ModelChain chain = ModelChain.of(List.of(), c.surface());
+        if (usePhysics && !c.models().isEmpty()) {
+            fit = ModelFitter.fit(lc, registry, seed);
+            chain = ModelFitter.chain(c, registry, fit);
+            for (var f : fit.models()) {
+                if (!f.message().isEmpty()) {
+                    notes.add(f.id() + ": " + f.message());
+                }
+            }
+        }
+        List<DesignPoint> pts = new ArrayList<>();
+        List<Run> runs = new ArrayList<>();
+        for (Run r : lc.runLog().runs()) {
+            DesignPoint p = space.encode(r.numbers(), r.categories());
+            if (p == null) {
+                notes.add("run " + r.runId() + " does not record every setting; the surrogates cannot use it");
+                continue;
+            }
+            pts.add(p);
+            runs.add(r);
+        }
+        // physics predictions at the runs' recipes (as for a new recipe: no measured outcomes fed in)
+        List<ModelChain.Result> chainAtRuns = new ArrayList<>();
+        for (Run r : runs) {
+            chainAtRuns.add(chain.predict(RecipeConverter.conditions(c, r, false)));
+        }
+        Map<String, GaussianProcess> gps = new LinkedHashMap<>();
+        Map<String, Double> fill = new LinkedHashMap<>();
+        Map<String, Boolean> physics = new LinkedHashMap<>();
+        int used = 0;
+        boolean[] usedRun = new boolean[runs.size()];
+        for (OutcomeSpec o : c.outcomes()) {
+            if (o.isClass()) {
+                continue;
+            }
+            List<DesignPoint> x = new ArrayList<>();
+            List<Double> y = new ArrayList<>();
+            List<Double> prior = new ArrayList<>();
+            for (int i = 0; i < runs.size(); i++) {
+                Run r = runs.get(i);
+                if (!r.ok()) {
+                    continue;
+                }
+                var v = r.number(o.name());
+                if (v.isEmpty() || (o.scale() == Scale.LOG && v.getAsDouble() <= 0)) {
+                    continue;
+                }
+                x.add(pts.get(i));
+                y.add(scaled(o, v.getAsDouble()));
+                prior.add(priorValue(c, o, chainAtRuns.get(i)));
+                usedRun[i] = true;
+            }
+            if (x.isEmpty()) {
+                continue;
+            }
+            double mean = y.stream().mapToDouble(Double::doubleValue).average().orElse(0);
+            boolean anyPhysics = prior.stream().anyMatch(Double::isFinite);
+            fill.put(o.name(), mean);
+            physics.put(o.name(), anyPhysics);
+            double[] yy = y.stream().mapToDouble(Double::doubleValue).toArray();
+            double[] pp = null;
+            if (anyPhysics) {
+                pp = prior.stream().mapToDouble(v -> Double.isFinite(v) ? v : mean).toArray();
+            }
+            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, GpSettings.defaults(), seed));
+        }
+        Map<String, ClassModel> cms = new LinkedHashMap<>();
+        for (OutcomeSpec o : c.outcomes()) {
+            if (!o.isClass()) {
+                continue;
+            }
+            List<DesignPoint> x = new ArrayList<>();
+            List<String> labels = new ArrayList<>();
+            List<double[]> priors = new ArrayList<>();
+            for (int i = 0; i < runs.size(); i++) {
+                Run r = runs.get(i);
+                if (!r.ok() || r.category(o.name()).isEmpty()) {
+                    continue;
+                }
+                x.add(pts.get(i));
+                labels.add(r.category(o.name()).get());
+                priors.add(classPrior(o, chainAtRuns.get(i)));
+                usedRun[i] = true;
+            }
+            cms.put(o.name(), ClassModel.fit(x, labels, o.classes(), priors.toArray(new double[0][]), seed));
+        }
+        for (boolean b : usedRun) {
+            if (b) {
+                used++;
+            }
+        }
+        boolean[] ok = new boolean[runs.size()];
+        for (int i = 0; i < ok.length; i++) {
+            ok[i] = runs.get(i).ok();
+        }
+        SuccessModel sm = SuccessModel.fit(pts, ok, seed);
+        return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used);
+    }
+
+    static double scaled(OutcomeSpec o, double v) {
+        return o.scale() == Scale.LOG ? Math.log10(v) : v;
+    }
+
+    /** The physics prediction of an outcome on its fitting scale, or NaN. */
+    static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
+        if (o.role() == null) {
+            return Double.NaN;
+        }
+        Double v = r.values().get(o.role());
+        if (v == null) {
+            return Double.NaN;
+        }
+        double inUnit = o.unit().fromCanonical(v, c.surface().monolayerHeightNm());
+        if (!Double.isFinite(inUnit) || (o.scale() == Scale.LOG && inUnit <= 0)) {
+            return Double.NaN;
+        }
+        return scaled(o, inUnit);
+    }
+
+    /** Class probabilities from the physics in the campaign's class order, or null (uniform). */
+    static double[] classPrior(OutcomeSpec o, ModelChain.Result r) {
+        if (o.role() == null) {
+            return uniform(o.classes().size());
+        }
+        Map<String, Double> m = r.probabilities().get(o.role());
+        if (m == null) {
+            return uniform(o.classes().size());
+        }
+        double[] p = new double[o.classes().size()];
+        double sum = 0;
+        for (int k = 0; k < p.length; k++) {
+            p[k] = Math.max(m.getOrDefault(o.classes().get(k), 0.0), ClassModel.PROBABILITY_FLOOR);
+            sum += p[k];
+        }
+        for (int k = 0; k < p.length; k++) {
+            p[k] /= sum;
+        }
+        return p;
+    }
+
+    static double[] uniform(int k) {
+        double[] p = new double[k];
+        java.util.Arrays.fill(p, 1.0 / k);
+        return p;
+    }
+
+    /**
+     * Predicts a batch of points.
+     *
+     * @param pts the points
+     * @return predictions; never null
+     */
+    public Evaluation evaluate(List<DesignPoint> pts) {
+        Campaign c = lc.campaign();
+        List<ModelChain.Result> phys = new ArrayList<>(pts.size());
+        List<List<String>> validity = new ArrayList<>(pts.size());
+        for (DesignPoint p : pts) {
+            Conditions cond = RecipeConverter.conditions(c, space.numbers(p), space.categories(p));
+            ModelChain.Result r = chain.predict(cond);
+            phys.add(r);
+            List<String> v = new ArrayList<>();
+            for (Map.Entry<String, Prediction> e : r.byModel().entrySet()) {
+                if (!e.getValue().validity().valid()) {
+                    v.add(e.getKey() + ": " + e.getValue().validity().reason());
+                }
+            }
+            validity.add(v);
+        }
+        Map<String, double[]> mean = new LinkedHashMap<>();
+        Map<String, double[]> sdl = new LinkedHashMap<>();
+        Map<String, Double> noise = new LinkedHashMap<>();
+        for (OutcomeSpec o : c.outcomes()) {
+            if (o.isClass()) {
+                continue;
+            }
+            GaussianProcess gp = gps.get(o.name());
+            double[] prior = new double[pts.size()];
+            for (int i = 0; i < prior.length; i++) {
+                prior[i] = priorValue(c, o, phys.get(i));
+            }
+            if (gp == null) {
+                // never measured: physics (if any) with a broad spread
+                double[] m = new double[pts.size()];
+                double[] s = new double[pts.size()];
+                for (int i = 0; i < m.length; i++) {
+                    m[i] = Double.isFinite(prior[i]) ? prior[i] : 0;
+                    s[i] = o.scale() == Scale.LOG ? UNMEASURED_LOG_SD
+                            : Math.max(UNMEASURED_RELATIVE_SD * Math.abs(m[i]), 1e-12);
+                    if (!Double.isFinite(prior[i])) {
+                        s[i] = 1e6; // nothing known at all
+                    }
+                }
+                mean.put(o.name(), m);
+                sdl.put(o.name(), s);
+                noise.put(o.name(), 0.0);
+                continue;
+            }
+            double f = priorFill.get(o.name());
+            for (int i = 0; i < prior.length; i++) {
+                if (!Double.isFinite(prior[i])) {
+                    prior[i] = f;
+                }
+            }
+            Predictive pr = gp.predict(pts, physicsPrior.get(o.name()) ? prior : null);
+            mean.put(o.name(), pr.mean());
+            sdl.put(o.name(), pr.sdLatent());
+            noise.put(o.name(), pr.noiseSd());
+        }
+        Map<String, double[][]> cls = new LinkedHashMap<>();
+        for (OutcomeSpec o : c.outcomes()) {
+            if (!o.isClass()) {
+                continue;
+            }
+            double[][] priors = new double[pts.size()][];
+            for (int i = 0; i < pts.size(); i++) {
+                priors[i] = classPrior(o, phys.get(i));
+            }
+            cls.put(o.name(), classModels.get(o.name()).predict(pts, priors));
+        }
+        double[] s = success.predict(pts);
+        return new Evaluation(pts, mean, sdl, noise, cls, s, validity);
+    }
+
+    /**
+     * A copy whose GPs also hold fantasy observations at their predicted means (Kriging believer,
+     * Ginsbourger, Le Riche and Carraro 2010): the next batch member then sees less uncertainty
+     * here. Class and success models are unchanged.
+     *
+     * @param p a chosen point
+     * @return the conditioned surrogate; never null
+     */
+    public CampaignSurrogate believe(DesignPoint p) {
+        Evaluation e = evaluate(List.of(p));
+        Map<String, GaussianProcess> next = new LinkedHashMap<>();
+        Campaign c = lc.campaign();
+        ModelChain.Result phys = chain.predict(RecipeConverter.conditions(c, space.numbers(p), space.categories(p)));
+        for (Map.Entry<String, GaussianProcess> g : gps.entrySet()) {
+            OutcomeSpec o = c.outcome(g.getKey()).orElseThrow();
+            double prior = priorValue(c, o, phys);
+            if (!Double.isFinite(prior)) {
+                prior = priorFill.get(o.name());
+            }
+            next.put(g.getKey(), g.getValue().condition(p, e.mean().get(g.getKey())[0],
+                    physicsPrior.get(o.name()) ? prior : Double.NaN));
+        }
+        List<DesignPoint> pts = new ArrayList<>(runPoints);
+        pts.add(p);
+        return new CampaignSurrogate(lc, space, chain, fit, next, priorFill, physicsPrior, classModels, success,
+                runPoints, encodedRuns, notes, runsUsed);
+    }
+
+    /** @return the campaign; never null */
+    public Campaign campaign() {
+        return lc.campaign();
+    }
+
+    /** @return the loaded campaign; never null */
+    public LoadedCampaign loaded() {
+        return lc;
+    }
+
+    /** @return the design space; never null */
+    public DesignSpace space() {
+        return space;
+    }
+
+    /** @return the model chain with fitted values (empty when the physics is off); never null */
+    public ModelChain chain() {
+        return chain;
+    }
+
+    /** @return the growth-model fit, or null when the physics is off or there are no models */
+    public FitReport fit() {
+        return fit;
+    }
+
+    /** @return the encoded recipes of the usable runs, in log order; never null */
+    public List<DesignPoint> runPoints() {
+        return List.copyOf(runPoints);
+    }
+
+    /** @return the runs matching {@link #runPoints()}; never null */
+    public List<Run> runs() {
+        return List.copyOf(encodedRuns);
+    }
+
+    /** @return the ok runs with at least one measured outcome that the surrogates used */
+    public int runsUsed() {
+        return runsUsed;
+    }
+
+    /** @return remarks about data that could not be used; never null */
+    public List<String> notes() {
+        return List.copyOf(notes);
+    }
+
+    /**
+     * @param outcome a numeric outcome name
+     * @return true when a GP was fitted for it
+     */
+    public boolean hasGp(String outcome) {
+        return gps.containsKey(outcome);
+    }
+}

@@ -74,7 +74,9 @@ final class ProposalOutput {
                 if (Double.isFinite(np.lo90()) && Double.isFinite(np.hi90())) {
                     iv.add(np.lo90()).add(np.hi90());
                 }
-                put(n, "p_in_window", np.inWindow());
+                if (np.hasWindow()) {
+                    n.put("p_in_window", np.inWindow());
+                }
             }
             for (Map.Entry<String, Map<String, Double>> e : p.classes().entrySet()) {
                 ObjectNode n = pred.putObject(e.getKey()).putObject("probabilities");
@@ -150,6 +152,10 @@ final class ProposalOutput {
                     }
                 } else {
                     NumericPrediction np = p.numeric().get(o.name());
+                    if (np == null) {
+                        row.addAll(List.of("", "", "", ""));
+                        continue;
+                    }
                     row.add(num(np.mean()));
                     row.add(num(np.sd()));
                     row.add(num(np.lo90()));
@@ -197,14 +203,14 @@ final class ProposalOutput {
                     sb.append("    ").append(Format.pad(o.name(), 14)).append(cl).append('\n');
                 } else {
                     NumericPrediction np = p.numeric().get(o.name());
-                    if (!Double.isFinite(np.mean())) {
+                    if (np == null) {
                         sb.append("    ").append(Format.pad(o.name(), 14)).append("no prediction (never measured)\n");
                         continue;
                     }
                     sb.append("    ").append(Format.pad(o.name(), 14)).append(Format.num(np.mean())).append(' ')
                             .append(o.unit().symbol()).append("  sd ").append(Format.num(np.sd()))
                             .append("  90 % ").append(Format.num(np.lo90())).append(" to ").append(Format.num(np.hi90()))
-                            .append(Double.isFinite(np.inWindow())
+                            .append(np.hasWindow()
                                     ? String.format(Locale.ROOT, "  P(in target) %.2f", np.inWindow()) : "")
                             .append('\n');
                 }

@@ -116,6 +116,8 @@ public final class ModelFitter {
     public static final double LOG_NOISE_START = 0.1;
     /** Starting relative noise of linear outcomes before reweighting (common practice for AFM sizes). */
     public static final double LINEAR_NOISE_START = 0.1;
+    /** Most reweighting passes (noise levels re-estimated from residuals, then refit); stops early when settled. */
+    public static final int REWEIGHT_ITERATIONS = 4;
     /** Residual assigned to an observation when a trial parameter set makes the prediction invalid. */
     private static final double INVALID_PENALTY = 30;
 
@@ -131,6 +133,20 @@ public final class ModelFitter {
      * @return the report; never null
      */
     public static FitReport fit(LoadedCampaign lc, PluginRegistry registry, long seed) {
+        return fit(lc, registry, seed, true);
+    }
+
+    /**
+     * Fits every model of a campaign, optionally without intervals (for proposals, which need the
+     * point estimates only: the bootstrap is skipped and intervals come from the covariance alone).
+     *
+     * @param lc        the campaign and its runs
+     * @param registry  where the campaign's models come from
+     * @param seed      seed for multi-starts and the bootstrap
+     * @param intervals false to skip the bootstrap
+     * @return the report; never null
+     */
+    public static FitReport fit(LoadedCampaign lc, PluginRegistry registry, long seed, boolean intervals) {
         Campaign c = lc.campaign();
         List<ModelChain.Step> fitted = new ArrayList<>();
         List<ModelFit> fits = new ArrayList<>();
@@ -144,8 +160,9 @@ public final class ModelFitter {
             }
             ModelFit f;
             try {
-                f = new Problem(c, lc.runLog().runs(), m.get(), ModelChain.of(fitted, c.surface()), rng.split())
-                        .solve();
+                Problem pr = new Problem(c, lc.runLog().runs(), m.get(), ModelChain.of(fitted, c.surface()), rng.split());
+                pr.intervals = intervals;
+                f = pr.solve();
             } catch (RuntimeException e) {
                 f = emptyFit(id, ParameterValues.defaults(m.get().parameters()), defaultsHeld(m.get(), "fit failed"),
                         "the fit of " + id + " failed: " + e.getClass().getSimpleName()
@@ -214,6 +231,7 @@ public final class ModelFitter {
         final List<String> numericOutcomes = new ArrayList<>();
         boolean hasClass;
         int maxEvaluations = 3000;
+        boolean intervals = true;
 
         Problem(Campaign c, List<Run> runs, GrowthModel model, ModelChain upstream, SplittableRandom rng) {
             this.c = c;
@@ -762,7 +780,8 @@ public final class ModelFitter {
             if (!cf.free.isEmpty()) {
                 List<double[]> starts = new ArrayList<>();
                 starts.add(start);
-                for (int s = 0; s < 2; s++) {
+                int extraStarts = intervals ? 2 : 1;
+                for (int s = 0; s < extraStarts; s++) {
                     double[] r = new double[start.length];
                     for (int i = 0; i < r.length; i++) {
                         ModelParameter p = cf.free.get(i);
@@ -778,9 +797,19 @@ public final class ModelFitter {
                 for (double[] s0 : starts) {
                     double[] uu = s0;
                     Map<String, Double> sg = startSigma();
-                    for (int iter = 0; iter < 4; iter++) {
+                    for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
                         uu = minimise(uu, combo, cf.free, sg);
-                        sg = updateSigma(predictAll(values(combo, cf.free, uu)));
+                        Map<String, Double> next = updateSigma(predictAll(values(combo, cf.free, uu)));
+                        boolean settled = true;
+                        for (String k : next.keySet()) {
+                            if (Math.abs(next.get(k) / sg.get(k) - 1) > 0.05) {
+                                settled = false;
+                            }
+                        }
+                        sg = next;
+                        if (settled && iter > 0) {
+                            break;
+                        }
                     }
                     double val = minus2LogL(predictAll(values(combo, cf.free, uu)));
                     if (val < bestVal) {
@@ -1082,7 +1111,7 @@ public final class ModelFitter {
             double[][] cov = d == 0 ? new double[0][0] : covariance(best);
             int nNum = (int) obs.stream().filter(o -> !o.isClass()).count();
             int dof = (hasClass ? obs.size() : nNum) - d;
-            boolean useBootstrap = d > 0 && (cov == null || dof < MIN_DOF_FOR_COVARIANCE);
+            boolean useBootstrap = intervals && d > 0 && (cov == null || dof < MIN_DOF_FOR_COVARIANCE);
             double[][] ci = new double[d][2];
             String method;
             if (useBootstrap) {
@@ -1090,6 +1119,12 @@ public final class ModelFitter {
                 method = "95 % interval from " + (hasClass ? BOOTSTRAP_REPLICATES_CLASSES : BOOTSTRAP_REPLICATES)
                         + " bootstrap refits"
                         + (cov == null ? " (the curvature of the fit is not reliable)" : " (small sample)");
+            } else if (cov == null) {
+                for (int k = 0; k < d; k++) {
+                    ci[k][0] = uLo(best.free.get(k));
+                    ci[k][1] = uHi(best.free.get(k));
+                }
+                method = "interval not computed (the curvature of the fit is not reliable; run terrace fit for a bootstrap)";
             } else {
                 double t = new TDistribution(Math.max(dof, 1)).inverseCumulativeProbability(0.975);
                 for (int k = 0; k < d; k++) {

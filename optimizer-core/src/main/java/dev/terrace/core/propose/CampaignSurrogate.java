@@ -100,7 +100,7 @@ public final class CampaignSurrogate {
         FitReport fit = null;
         ModelChain chain = ModelChain.of(List.of(), c.surface());
         if (usePhysics && !c.models().isEmpty()) {
-            fit = ModelFitter.fit(lc, registry, seed);
+            fit = ModelFitter.fit(lc, registry, seed, false);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
                 if (!f.message().isEmpty()) {

@@ -23,9 +23,23 @@ public final class Proposals {
      *               mean·ln(10)·sd_log10)
      * @param lo90   lower end of the 90 % interval of a new measurement
      * @param hi90   upper end of the 90 % interval
-     * @param inWindow probability that a new measurement lies in the target window (NaN without one)
+     * @param inWindow probability that a new measurement lies in the target window, or -1 when the
+     *                 outcome has no window target
      */
     public record NumericPrediction(double mean, double sd, double lo90, double hi90, double inWindow) {
+        /** Checks that every value is finite. */
+        public NumericPrediction {
+            for (double v : new double[] {mean, sd, lo90, hi90, inWindow}) {
+                if (!Double.isFinite(v)) {
+                    throw new IllegalArgumentException("prediction values must be finite");
+                }
+            }
+        }
+
+        /** @return true when the outcome has a window target */
+        public boolean hasWindow() {
+            return inWindow >= 0;
+        }
     }
 
     /**

@@ -434,15 +434,14 @@ public final class Proposer {
             double sn = Math.sqrt(sl * sl + ns * ns);
             Target t = c.target(o.name()).orElse(null);
             double inWin = t != null && t.hasWindow()
-                    ? clamp01(Acquisitions.windowProbability(mu, sn, scaled(o, t.min()), scaled(o, t.max()))) : Double.NaN;
+                    ? clamp01(Acquisitions.windowProbability(mu, sn, scaled(o, t.min()), scaled(o, t.max()))) : -1;
             if (sn > 1e5) {
-                numeric.put(o.name(), new NumericPrediction(Double.NaN, Double.NaN, Double.NaN, Double.NaN, inWin));
-                continue;
+                continue; // never measured and no growth model predicts it: nothing to say
             }
             if (o.scale() == Scale.LOG) {
                 double med = Math.pow(10, mu);
-                numeric.put(o.name(), new NumericPrediction(finite(med), finite(med * Math.log(10) * sn),
-                        finite(Math.pow(10, mu - Z90 * sn)), finite(Math.pow(10, mu + Z90 * sn)), inWin));
+                numeric.put(o.name(), new NumericPrediction(bounded(med), bounded(med * Math.log(10) * sn),
+                        bounded(Math.pow(10, mu - Z90 * sn)), bounded(Math.pow(10, mu + Z90 * sn)), inWin));
             } else {
                 numeric.put(o.name(), new NumericPrediction(mu, sn, mu - Z90 * sn, mu + Z90 * sn, inWin));
             }
@@ -481,7 +480,7 @@ public final class Proposer {
         flags.addAll(e.validity().get(0));
         flags.addAll(safetyFlags(c, numbers, categories));
         String reason = reason(mode, yield, acq, sc.factors().get(0), nearest, nd, sur, s);
-        return new Proposal(id(c.id(), recipe), 0, yield, finite(acq), recipe, numeric, classes,
+        return new Proposal(id(c.id(), recipe), 0, yield, bounded(acq), recipe, numeric, classes,
                 clamp01(e.success()[0]), nearest, Double.isNaN(nd) ? 0 : nd, reason, flags, inside, limits);
     }
 
@@ -550,6 +549,14 @@ public final class Proposer {
 
     static double clamp01(double v) {
         return Double.isFinite(v) ? Math.max(0, Math.min(1, v)) : 0;
+    }
+
+    /** Finite value for outputs: overflow maps to the largest double, NaN to 0. */
+    static double bounded(double v) {
+        if (Double.isNaN(v)) {
+            return 0;
+        }
+        return Math.max(-Double.MAX_VALUE, Math.min(Double.MAX_VALUE, v));
     }
 
     static double finite(double v) {

@@ -94,6 +94,21 @@ public final class CampaignSurrogate {
      * @return the surrogate; never null
      */
     public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed) {
+        return build(lc, registry, usePhysics, seed, GpSettings.defaults());
+    }
+
+    /**
+     * Fits everything with explicit GP settings (benchmarks use fewer hyperparameter starts).
+     *
+     * @param lc         the campaign and its runs
+     * @param registry   the plugins
+     * @param usePhysics false to switch the growth models off
+     * @param seed       seed of every random choice
+     * @param gpSettings settings of the Gaussian processes
+     * @return the surrogate; never null
+     */
+    public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed,
+                                          GpSettings gpSettings) {
         Campaign c = lc.campaign();
         DesignSpace space = DesignSpace.of(c);
         List<String> notes = new ArrayList<>();
@@ -162,7 +177,7 @@ public final class CampaignSurrogate {
             if (anyPhysics) {
                 pp = prior.stream().mapToDouble(v -> Double.isFinite(v) ? v : mean).toArray();
             }
-            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, GpSettings.defaults(), seed));
+            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, gpSettings, seed));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {

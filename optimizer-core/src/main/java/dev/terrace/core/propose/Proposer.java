@@ -171,6 +171,25 @@ public final class Proposer {
     record Scores(double[] logYield, double[] logAcq, List<Map<String, Double>> factors) {
     }
 
+    /**
+     * The predicted yield of each point of an evaluation: the probability that a run there meets
+     * every target, exactly as {@link #propose} and {@link #rank} report it (the product over the
+     * targets described in the class comment, clamped to [0, 1]). Neither the exploration weight
+     * nor an objective enters the yield.
+     *
+     * @param sur the surrogate that made the evaluation
+     * @param e   an evaluation of {@code sur} at some points
+     * @return the yield per point, in the evaluation's order, each in [0, 1]; never null
+     */
+    public static double[] yields(CampaignSurrogate sur, Evaluation e) {
+        double[] ly = score(sur, e, 0, null).logYield();
+        double[] y = new double[ly.length];
+        for (int i = 0; i < ly.length; i++) {
+            y[i] = clamp01(Math.exp(ly[i]));
+        }
+        return y;
+    }
+
     static double scaled(OutcomeSpec o, double v) {
         if (Double.isNaN(v)) {
             return Double.NaN;

@@ -3,6 +3,7 @@ package dev.terrace.cli;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
+import me.tongfei.progressbar.ProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBarStyle;
 
 import java.io.IOException;
@@ -29,12 +30,14 @@ import java.util.Objects;
  * }
  * </pre>
  *
- * <p>When the loop lives in optimizer-core (the genetic search, a map grid, the bench), pass
- * {@link #ticker()} to it as a plain {@link Runnable} callback, so the core stays free of any
- * terminal code: {@code GeneticSearch.of(s).maximise(..., p.ticker())}. When the number of steps
+ * <p>When the loop lives in optimizer-core (the genetic search, a map grid, the bench), give the
+ * core method a plain {@link Runnable} parameter called once per step and pass {@link #ticker()}
+ * to it, so the core stays free of terminal code (for example a search that ticks once per
+ * generation, started with {@code maxGenerations} steps). When the number of steps
  * is unknown, pass {@code 0}: the bar then shows elapsed time only. Use {@link #message(String)}
- * to name the current sub-phase on a single bar that spans several phases, as {@code terrace report}
- * does. Never write results to the bar: it is decoration and may be absent.
+ * to name the current sub-phase on a single bar that spans several phases; for phases of very
+ * different lengths use {@link #startPhases}, which drops the time-left estimate, as
+ * {@code terrace report} does. Never write results to the bar: it is decoration and may be absent.
  *
  * <p><b>Terminal detection.</b> {@link System#console()} must be non-null (on Java 17 that means
  * standard input and output are a terminal), and, where {@code /proc/self/fd/2} exists (Linux), it
@@ -50,12 +53,51 @@ public final class Progress implements AutoCloseable {
     /** Width of the bar in characters when it is drawn to a stream that is not a terminal (tests). */
     static final int FIXED_WIDTH = 80;
 
-    private static final Progress NONE = new Progress(null);
+    private static final Progress NONE = new Progress(null, null);
 
     private final ProgressBar bar;
+    private final Sink sink;
 
-    private Progress(ProgressBar bar) {
+    private Progress(ProgressBar bar, Sink sink) {
         this.bar = bar;
+        this.sink = sink;
+    }
+
+    private static Progress drawing(String task, long steps, boolean eta, ConsoleProgressBarConsumer out) {
+        Sink s = new Sink(out);
+        ProgressBarBuilder b = builder(task, steps).setConsumer(s);
+        return new Progress((eta ? b : b.hideEta()).build(), s);
+    }
+
+    /**
+     * Passes the drawing on and remembers whether the line was ended: the library skips ending it
+     * when a bar is closed before its first redraw.
+     */
+    private static final class Sink implements ProgressBarConsumer {
+        private final ConsoleProgressBarConsumer out;
+        private volatile boolean closed;
+
+        Sink(ConsoleProgressBarConsumer out) {
+            this.out = out;
+        }
+
+        @Override
+        public int getMaxRenderedLength() {
+            return out.getMaxRenderedLength();
+        }
+
+        @Override
+        public void accept(String rendered) {
+            out.accept(rendered);
+        }
+
+        @Override
+        public void close() {
+            if (!closed) {
+                closed = true;
+                out.close();
+            }
+        }
     }
 
     /**
@@ -83,7 +125,25 @@ public final class Progress implements AutoCloseable {
         if (!wanted || !stderrIsTerminal()) {
             return NONE;
         }
-        return new Progress(builder(task, steps).setConsumer(new ConsoleProgressBarConsumer(System.err)).build());
+        return drawing(task, steps, true, new ConsoleProgressBarConsumer(System.err));
+    }
+
+    /**
+     * Starts a bar over phases of very different lengths (load, fit, validate, ...): one step per
+     * phase and no time-left estimate, which would mislead there; name each phase with
+     * {@link #message(String)}.
+     *
+     * @param task   what is being done
+     * @param phases how many phases
+     * @param g      the global options; may be null
+     * @return the bar, or a silent one; never null
+     */
+    public static Progress startPhases(String task, int phases, GlobalOptions g) {
+        Objects.requireNonNull(task, "task");
+        if ((g != null && g.quiet) || !stderrIsTerminal()) {
+            return NONE;
+        }
+        return drawing(task, phases, false, new ConsoleProgressBarConsumer(System.err));
     }
 
     /**
@@ -97,7 +157,7 @@ public final class Progress implements AutoCloseable {
     static Progress drawingTo(PrintStream sink, String task, long steps) {
         Objects.requireNonNull(sink, "sink");
         Objects.requireNonNull(task, "task");
-        return new Progress(builder(task, steps).setConsumer(new ConsoleProgressBarConsumer(sink, FIXED_WIDTH)).build());
+        return drawing(task, steps, true, new ConsoleProgressBarConsumer(sink, FIXED_WIDTH));
     }
 
     /** @return a bar that never draws anything; never null */
@@ -190,6 +250,7 @@ public final class Progress implements AutoCloseable {
     public void close() {
         if (bar != null) {
             bar.close();
+            sink.close();
         }
     }
 }

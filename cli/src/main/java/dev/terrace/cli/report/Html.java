@@ -14,6 +14,8 @@ public final class Html {
     /** What a number that is not finite is written as. */
     public static final String NO_VALUE = "\u2013";
 
+    private static final java.util.regex.Pattern POWER = java.util.regex.Pattern.compile("\\^(-?[0-9]+)");
+
     private final StringBuilder sb = new StringBuilder(64 * 1024);
 
     private Html() {
@@ -146,6 +148,27 @@ public final class Html {
     }
 
     /**
+     * Writes a unit symbol as a reader expects it: powers as superscripts (cm^-2 as cm<sup>−2</sup>)
+     * and degC as °C.
+     *
+     * @param symbol a unit symbol as campaign files spell it; may be empty
+     * @return this writer
+     */
+    public Html unit(String symbol) {
+        if (symbol == null || symbol.isEmpty()) {
+            return this;
+        }
+        String s = symbol.replace("degC", "\u00b0C");
+        java.util.regex.Matcher m = POWER.matcher(s);
+        int last = 0;
+        while (m.find()) {
+            text(s.substring(last, m.start())).raw("<sup>").text(m.group(1).replace("-", "\u2212")).raw("</sup>");
+            last = m.end();
+        }
+        return text(s.substring(last));
+    }
+
+    /**
      * @param s text to write escaped
      * @return this writer
      */
@@ -233,7 +256,11 @@ public final class Html {
         return close("tr").close("thead");
     }
 
-    /** Writes a line break in the markup (readability of the file only). */
+    /**
+     * Writes a line break in the markup (readability of the file only).
+     *
+     * @return this writer
+     */
     public Html nl() {
         sb.append('\n');
         return this;

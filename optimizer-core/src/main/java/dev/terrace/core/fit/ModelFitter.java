@@ -116,6 +116,8 @@ public final class ModelFitter {
     public static final double LOG_NOISE_START = 0.1;
     /** Starting relative noise of linear outcomes before reweighting (common practice for AFM sizes). */
     public static final double LINEAR_NOISE_START = 0.1;
+    /** Evaluation budget of the direct search when no intervals are wanted (proposals, cross-validation). */
+    public static final int FAST_MAX_EVALUATIONS = 1200;
     /** Most reweighting passes (noise levels re-estimated from residuals, then refit); stops early when settled. */
     public static final int REWEIGHT_ITERATIONS = 4;
     /** Residual assigned to an observation when a trial parameter set makes the prediction invalid. */
@@ -162,6 +164,7 @@ public final class ModelFitter {
             try {
                 Problem pr = new Problem(c, lc.runLog().runs(), m.get(), ModelChain.of(fitted, c.surface()), rng.split());
                 pr.intervals = intervals;
+                pr.maxEvaluations = intervals ? 3000 : FAST_MAX_EVALUATIONS;
                 f = pr.solve();
             } catch (RuntimeException e) {
                 f = emptyFit(id, ParameterValues.defaults(m.get().parameters()), defaultsHeld(m.get(), "fit failed"),

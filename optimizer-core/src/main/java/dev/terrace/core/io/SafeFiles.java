@@ -20,6 +20,21 @@ public final class SafeFiles {
     private SafeFiles() {
     }
 
+    /** Gives the temporary file the permissions of the file it replaces, or rw-r--r-- for a new one. */
+    private static void permissions(Path tmp, Path target) {
+        try {
+            if (!Files.getFileStore(tmp).supportsFileAttributeView("posix")) {
+                return;
+            }
+            java.util.Set<java.nio.file.attribute.PosixFilePermission> perms = Files.exists(target)
+                    ? Files.getPosixFilePermissions(target)
+                    : java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--");
+            Files.setPosixFilePermissions(tmp, perms);
+        } catch (IOException | UnsupportedOperationException e) {
+            // keep the temporary file's permissions
+        }
+    }
+
     /**
      * Writes a new file; fails if one exists already.
      *
@@ -53,6 +68,7 @@ public final class SafeFiles {
         Path tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".part");
         try {
             Files.write(tmp, bytes);
+            permissions(tmp, abs);
             if (replace) {
                 try {
                     Files.move(tmp, abs, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);

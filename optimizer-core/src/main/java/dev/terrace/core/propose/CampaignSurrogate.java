@@ -94,8 +94,17 @@ public final class CampaignSurrogate {
      * @return the surrogate; never null
      */
     public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed) {
-        return build(lc, registry, usePhysics, seed, GpSettings.defaults());
+        return build(lc, registry, usePhysics, seed, DEFAULT_GP);
     }
+
+    /**
+     * GP settings for measured growth outcomes: the library defaults with a noise floor of 1e-2 of the
+     * standardised variance (a noise sd of at least 10 % of the residual spread). Repeat runs of one
+     * recipe never agree better than that in practice (common practice: AFM densities and sizes
+     * repeat to 5-15 %), and without it the noise estimate collapses when a training set holds no
+     * repeated recipe, giving far too narrow intervals.
+     */
+    public static final GpSettings DEFAULT_GP = GpSettings.defaults().withNoiseFloor(1e-2);
 
     /**
      * Fits everything with explicit GP settings (benchmarks use fewer hyperparameter starts).

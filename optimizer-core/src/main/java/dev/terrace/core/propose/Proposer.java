@@ -56,8 +56,11 @@ import java.util.Map;
  * <p><b>Batches</b> use the Kriging believer (Ginsbourger, Le Riche and Carraro 2010): after each
  * pick the GPs are conditioned on their own predicted mean there, so uncertainty shrinks and the
  * next pick goes elsewhere; picks closer than {@code minDistance} to an earlier pick are penalised.
+ * In a batch of two or more, the first pick maximises the predicted yield itself (the best bet) and
+ * the others the optimistic yield, so every batch holds one recipe to rely on and some to learn from.
  *
- * <p><b>Too few runs.</b> With fewer ok runs with outcomes than settings + 1, a maximin Latin
+ * <p><b>Too few runs.</b> With fewer ok runs with outcomes than {@link #runsNeeded} (settings + 1,
+ * or half that when fitted growth models shape the surrogate), a maximin Latin
  * hypercube (Johnson, Moore and Ylvisaker 1990) is drawn and, when growth models are present, its
  * points are taken in order of their predicted yield (physics prior), keeping them apart.
  *
@@ -99,7 +102,7 @@ public final class Proposer {
      */
     public static ProposalSet propose(CampaignSurrogate sur, ProposeSettings s) {
         DesignSpace space = sur.space();
-        int needed = space.dimensions() + space.categorical().size() + 1;
+        int needed = runsNeeded(sur, s);
         List<String> notes = new ArrayList<>(sur.notes());
         List<DesignPoint> chosen;
         String mode;
@@ -107,7 +110,7 @@ public final class Proposer {
             mode = "space-filling start";
             chosen = spaceFilling(sur, s);
             notes.add("only " + sur.runsUsed() + " run" + (sur.runsUsed() == 1 ? "" : "s")
-                    + " with measured outcomes, fewer than the " + needed + " (settings + 1) needed to fit the"
+                    + " with measured outcomes, fewer than the " + needed + " needed to fit the"
                     + " surrogates: proposing a maximin Latin-hypercube design"
                     + (sur.campaign().models().isEmpty() || !s.usePhysics() ? ""
                     : ", taken in order of the growth models' predicted yield"));
@@ -127,6 +130,23 @@ public final class Proposer {
             ranked.add(out.get(i).withRank(i + 1));
         }
         return new ProposalSet(sur.campaign().id(), sur.runsUsed(), s.seed(), mode, s.explore(), ranked, notes);
+    }
+
+    /**
+     * Fewest ok runs with outcomes before the surrogates drive the search: settings + 1 without growth
+     * models; with growth models that could be fitted, half of that (at least
+     * {@link dev.terrace.core.fit.ModelFitter#MIN_RUNS}), because the fitted physics already gives the
+     * surrogate its shape and the GP only learns what the physics misses.
+     *
+     * @param sur the surrogate
+     * @param s   settings
+     * @return the threshold
+     */
+    public static int runsNeeded(CampaignSurrogate sur, ProposeSettings s) {
+        DesignSpace space = sur.space();
+        int plain = space.dimensions() + space.categorical().size() + 1;
+        boolean physics = s.usePhysics() && sur.fit() != null && sur.fit().fittedAnything();
+        return physics ? Math.max(dev.terrace.core.fit.ModelFitter.MIN_RUNS, (plain + 1) / 2) : plain;
     }
 
     /**
@@ -323,8 +343,10 @@ public final class Proposer {
         for (int k = 0; k < s.batch(); k++) {
             final CampaignSurrogate model = cur;
             final List<DesignPoint> picked = List.copyOf(chosen);
+            // the first pick of a batch is the best bet (no exploration); the others explore
+            final double beta = k == 0 && s.batch() > 1 ? 0 : s.explore();
             BatchObjective obj = pts -> {
-                Scores sc = score(model, model.evaluate(pts), s.explore(), inc);
+                Scores sc = score(model, model.evaluate(pts), beta, inc);
                 double[] v = sc.logAcq().clone();
                 for (int i = 0; i < v.length; i++) {
                     for (DesignPoint q : picked) {

@@ -117,6 +117,15 @@ public record GpSettings(int hpoStarts, int maxIterations, double noiseFloor, do
      * @param starts number of starts, at least 1
      * @return these settings with another number of starts
      */
+    /**
+     * @param floor smallest noise variance as a fraction of the standardised variance, in (0, 1)
+     * @return a copy with another noise floor
+     */
+    public GpSettings withNoiseFloor(double floor) {
+        return new GpSettings(hpoStarts, maxIterations, floor, lengthScaleMin, lengthScaleMax,
+                hpoSubsetSize, largeDataStarts, polishIterations);
+    }
+
     public GpSettings withHpoStarts(int starts) {
         return new GpSettings(starts, maxIterations, noiseFloor, lengthScaleMin, lengthScaleMax,
                 hpoSubsetSize, largeDataStarts, polishIterations);

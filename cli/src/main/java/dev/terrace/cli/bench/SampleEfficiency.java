@@ -292,7 +292,8 @@ public final class SampleEfficiency {
             DesignPoint top;
             if (strategy.startsWith("terrace")) {
                 boolean physics = strategy.equals("terrace");
-                CampaignSurrogate sur = CampaignSurrogate.build(loaded(c, runs), reg, physics, seed + runs.size(), BENCH_GP_CHAMBER);
+                CampaignSurrogate sur = CampaignSurrogate.build(loaded(c, runs), reg, physics, seed + runs.size(),
+                        BENCH_GP_CHAMBER, CampaignSurrogate.MIN_NOISE_FRACTION);
                 ProposalSet set = Proposer.propose(sur, settings(2, seed + runs.size(), physics));
                 for (Proposal p : set.proposals()) {
                     next.add(space.encode(numbers(p), categories(p)));

@@ -94,8 +94,16 @@ public final class CampaignSurrogate {
      * @return the surrogate; never null
      */
     public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed) {
-        return build(lc, registry, usePhysics, seed, DEFAULT_GP);
+        return build(lc, registry, usePhysics, seed, DEFAULT_GP, MIN_NOISE_FRACTION);
     }
+
+    /**
+     * Smallest measurement-noise sd of a numeric outcome as a fraction of the spread (sd) of its
+     * measured values: 0.1. Growth outcomes never repeat better than that in a campaign that spans
+     * the box (common practice: AFM densities and sizes repeat to 5-15 %), and the physics prior can
+     * leave residuals so small that a GP would otherwise claim precision no run delivers.
+     */
+    public static final double MIN_NOISE_FRACTION = 0.1;
 
     /**
      * GP settings for measured growth outcomes: the library defaults with a noise floor of 1e-2 of the
@@ -118,6 +126,23 @@ public final class CampaignSurrogate {
      */
     public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed,
                                           GpSettings gpSettings) {
+        return build(lc, registry, usePhysics, seed, gpSettings, 0);
+    }
+
+    /**
+     * Fits everything with explicit GP settings and a noise floor tied to the outcomes' spread.
+     *
+     * @param lc               the campaign and its runs
+     * @param registry         the plugins
+     * @param usePhysics       false to switch the growth models off
+     * @param seed             seed of every random choice
+     * @param gpSettings       settings of the Gaussian processes
+     * @param minNoiseFraction smallest noise sd as a fraction of each outcome's measured spread (0 for
+     *                         noise-free objectives such as test functions)
+     * @return the surrogate; never null
+     */
+    public static CampaignSurrogate build(LoadedCampaign lc, PluginRegistry registry, boolean usePhysics, long seed,
+                                          GpSettings gpSettings, double minNoiseFraction) {
         Campaign c = lc.campaign();
         DesignSpace space = DesignSpace.of(c);
         List<String> notes = new ArrayList<>();
@@ -186,7 +211,20 @@ public final class CampaignSurrogate {
             if (anyPhysics) {
                 pp = prior.stream().mapToDouble(v -> Double.isFinite(v) ? v : mean).toArray();
             }
-            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, gpSettings, seed));
+            GpSettings gs = gpSettings;
+            if (minNoiseFraction > 0 && yy.length > 1) {
+                double sdRaw = sd(yy);
+                double[] res = new double[yy.length];
+                for (int i = 0; i < yy.length; i++) {
+                    res[i] = yy[i] - (pp != null ? pp[i] : mean);
+                }
+                double varRes = Math.pow(sd(res), 2);
+                if (varRes > 0 && sdRaw > 0) {
+                    double floor = Math.pow(minNoiseFraction * sdRaw, 2) / varRes;
+                    gs = gs.withNoiseFloor(Math.max(gs.noiseFloor(), Math.min(floor, 0.5)));
+                }
+            }
+            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, gs, seed));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -219,6 +257,18 @@ public final class CampaignSurrogate {
         }
         SuccessModel sm = SuccessModel.fit(pts, ok, seed);
         return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used);
+    }
+
+    static double sd(double[] v) {
+        double m = 0;
+        for (double x : v) {
+            m += x / v.length;
+        }
+        double s = 0;
+        for (double x : v) {
+            s += (x - m) * (x - m);
+        }
+        return Math.sqrt(s / Math.max(v.length - 1, 1));
     }
 
     static double scaled(OutcomeSpec o, double v) {

@@ -165,6 +165,69 @@ public final class Validation {
         return out;
     }
 
+    /** Number of threads that build fold surrogates (the machines Terrace targets have 2 cores). */
+    public static final int FOLD_THREADS = 2;
+
+    /** The surrogates fitted without one run. */
+    record FoldModels(ModelChain chain, FitReport fit, CampaignSurrogate pg, CampaignSurrogate.Evaluation evPg,
+                      CampaignSurrogate gp, CampaignSurrogate.Evaluation evGp, List<String> problems) {
+    }
+
+    static FoldModels buildFold(LoadedCampaign lc, PluginRegistry reg, long seed, int fi, boolean wantPg,
+                                boolean wantPhysics, boolean wantGp, Runnable afterFold) {
+        Campaign c = lc.campaign();
+        DesignSpace space = DesignSpace.of(c);
+        List<Run> runs = lc.runLog().runs();
+        Run held = runs.get(fi);
+        List<Run> train = new ArrayList<>(runs);
+        train.remove(fi);
+        LoadedCampaign reduced = new LoadedCampaign(c,
+                new RunLog(lc.runLog().file(), train, lc.runLog().warnings()), lc.warnings());
+        DesignPoint point = space.encode(held.numbers(), held.categories());
+        List<String> problems = new ArrayList<>();
+            ModelChain chain = null;
+        FitReport fit = null;
+        CampaignSurrogate.Evaluation evPg = null;
+        CampaignSurrogate pgSurrogate = null;
+        if (wantPg) {
+            try {
+                pgSurrogate = CampaignSurrogate.build(reduced, reg, true, seed);
+                chain = pgSurrogate.chain();
+                fit = pgSurrogate.fit();
+                evPg = pgSurrogate.evaluate(List.of(point));
+            } catch (RuntimeException e) {
+                problems.add(failure(held, PHYSICS_GP, e));
+                pgSurrogate = null;
+                evPg = null;
+            }
+        }
+        if (wantPhysics && chain == null) {
+            try {
+                fit = ModelFitter.fit(reduced, reg, seed, false);
+                chain = ModelFitter.chain(c, reg, fit);
+            } catch (RuntimeException e) {
+                problems.add(failure(held, PHYSICS, e));
+                chain = null;
+            }
+        }
+        CampaignSurrogate gpSurrogate = null;
+        CampaignSurrogate.Evaluation evGp = null;
+        if (wantGp) {
+            try {
+                gpSurrogate = CampaignSurrogate.build(reduced, reg, false, seed);
+                evGp = gpSurrogate.evaluate(List.of(point));
+            } catch (RuntimeException e) {
+                problems.add(failure(held, GP, e));
+                gpSurrogate = null;
+                evGp = null;
+            }
+        }
+        synchronized (afterFold) {
+            afterFold.run();
+        }
+        return new FoldModels(chain, fit, pgSurrogate, evPg, gpSurrogate, evGp, problems);
+    }
+
     static List<OutcomeSpec> eligible(Campaign c, List<Run> runs) {
         List<OutcomeSpec> out = new ArrayList<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -258,51 +321,43 @@ public final class Validation {
         Set<String> physicsCovers = new HashSet<>();
         List<String> problems = new ArrayList<>();
 
-        for (int fi : folds) {
+        // the surrogates of every fold are independent: build them on up to FOLD_THREADS threads
+        // (each with the same seed, so the result does not depend on the thread count)
+        List<FoldModels> built = new ArrayList<>();
+        java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(
+                Math.max(1, Math.min(FOLD_THREADS, folds.size())));
+        try {
+            List<java.util.concurrent.Future<FoldModels>> futures = new ArrayList<>();
+            for (int fi : folds) {
+                futures.add(pool.submit(() -> buildFold(lc, reg, seed, fi, wantPg, wantPhysics, wantGp, afterFold)));
+            }
+            for (java.util.concurrent.Future<FoldModels> f : futures) {
+                try {
+                    built.add(f.get());
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    throw new IllegalStateException("validation interrupted", e);
+                } catch (java.util.concurrent.ExecutionException e) {
+                    throw new IllegalStateException("validation fold failed: " + e.getCause(), e.getCause());
+                }
+            }
+        } finally {
+            pool.shutdownNow();
+        }
+        for (int k = 0; k < folds.size(); k++) {
+            int fi = folds.get(k);
+            FoldModels fm = built.get(k);
+            problems.addAll(fm.problems());
             Run held = runs.get(fi);
             List<Run> train = new ArrayList<>(runs);
             train.remove(fi);
-            LoadedCampaign reduced = new LoadedCampaign(c,
-                    new RunLog(lc.runLog().file(), train, lc.runLog().warnings()), lc.warnings());
             DesignPoint point = space.encode(held.numbers(), held.categories());
-
-            ModelChain chain = null;
-            FitReport fit = null;
-            CampaignSurrogate.Evaluation evPg = null;
-            CampaignSurrogate pgSurrogate = null;
-            if (wantPg) {
-                try {
-                    pgSurrogate = CampaignSurrogate.build(reduced, reg, true, seed);
-                    chain = pgSurrogate.chain();
-                    fit = pgSurrogate.fit();
-                    evPg = pgSurrogate.evaluate(List.of(point));
-                } catch (RuntimeException e) {
-                    problems.add(failure(held, PHYSICS_GP, e));
-                    pgSurrogate = null;
-                    evPg = null;
-                }
-            }
-            if (wantPhysics && chain == null) {
-                try {
-                    fit = ModelFitter.fit(reduced, reg, seed, false);
-                    chain = ModelFitter.chain(c, reg, fit);
-                } catch (RuntimeException e) {
-                    problems.add(failure(held, PHYSICS, e));
-                    chain = null;
-                }
-            }
-            CampaignSurrogate gpSurrogate = null;
-            CampaignSurrogate.Evaluation evGp = null;
-            if (wantGp) {
-                try {
-                    gpSurrogate = CampaignSurrogate.build(reduced, reg, false, seed);
-                    evGp = gpSurrogate.evaluate(List.of(point));
-                } catch (RuntimeException e) {
-                    problems.add(failure(held, GP, e));
-                    gpSurrogate = null;
-                    evGp = null;
-                }
-            }
+            ModelChain chain = fm.chain();
+            FitReport fit = fm.fit();
+            CampaignSurrogate.Evaluation evPg = fm.evPg();
+            CampaignSurrogate pgSurrogate = fm.pg();
+            CampaignSurrogate gpSurrogate = fm.gp();
+            CampaignSurrogate.Evaluation evGp = fm.evGp();
             if (!hasModels && surrogates.contains(PHYSICS_GP)) {
                 // without growth models the physics+gp surrogate is the GP alone
                 pgSurrogate = gpSurrogate;
@@ -370,7 +425,6 @@ public final class Validation {
                             Math.max(sdNew(evPg, o.name()), floor), m0, s0);
                 }
             }
-            afterFold.run();
         }
 
         // scores, parity points, verdict

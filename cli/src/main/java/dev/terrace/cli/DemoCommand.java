@@ -11,6 +11,7 @@ import picocli.CommandLine.Option;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 
 /** {@code terrace demo}: copies the bundled demo campaign to a new folder and runs the job on it. */
@@ -69,9 +70,30 @@ final class DemoCommand implements Callable<Integer> {
         out.print(ProposalOutput.table(set, lc.campaign()));
         Path proposals = target.resolve("proposals.json");
         dev.terrace.core.io.SafeFiles.writeNew(proposals, ProposalOutput.json(set));
+        List<String> axes = ReportCommand.mapAxes(lc.campaign());
+        Path mapFile = target.resolve("window-map.png");
+        Path report = target.resolve("report.html");
+        String[][] steps = {
+            {"validate", campaign.toString(), "--quiet"},
+            {"map", campaign.toString(), "--x", axes.get(0), "--y", axes.get(1), "--out", mapFile.toString(), "--quiet"},
+            {"report", campaign.toString(), "--out", report.toString(), "--quiet"}};
+        for (String[] step : steps) {
+            out.println();
+            out.println("== terrace " + String.join(" ", step));
+            out.flush();
+            CommandLine cl = Main.commandLine();
+            cl.setOut(out);
+            cl.setErr(err);
+            int rc = cl.execute(step);
+            if (rc != 0) {
+                throw new JobFailedException("the demo step 'terrace " + step[0] + "' failed (exit code " + rc + ")");
+            }
+        }
         out.println();
-        out.println("Files:");
+        out.println("Files (invented demo data):");
         out.println("  proposals " + proposals.toAbsolutePath().normalize());
+        out.println("  map       " + mapFile.toAbsolutePath().normalize());
+        out.println("  report    " + report.toAbsolutePath().normalize() + "  (open it in a browser; prints on A4)");
         out.println("  campaign  " + campaign.toAbsolutePath().normalize());
         out.println("  run log   " + lc.runLog().file());
         out.flush();

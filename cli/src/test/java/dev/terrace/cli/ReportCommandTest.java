@@ -185,6 +185,15 @@ class ReportCommandTest {
     }
 
     @Test
+    void windowMapsAreOverTheSubstrateTemperatureAndTheGroupVPressure() {
+        // the demo's t_drop has role substrate_temperature and as_flux role group_v_bep (its campaign.yaml)
+        assertEquals(List.of("t_drop", "as_flux"), ReportCommand.mapAxes(loaded.campaign()));
+        Element windows = doc.getElementById(HtmlReport.anchor(HtmlReport.H_WINDOWS));
+        assertEquals(2, windows.select("figure svg").size(), "plain map and map with 5 K temperature error");
+        assertTrue(windows.text().contains("5 K"), windows.text());
+    }
+
+    @Test
     void noUndefinedNumbersAnywhere() {
         assertFalse(html.contains("NaN"), "NaN in the page");
         assertFalse(html.contains("Infinity"), "Infinity in the page");

@@ -116,6 +116,8 @@ public final class ModelFitter {
     public static final double LOG_NOISE_START = 0.1;
     /** Starting relative noise of linear outcomes before reweighting (common practice for AFM sizes). */
     public static final double LINEAR_NOISE_START = 0.1;
+    /** Threads fitting the discrete candidates of one model (the machines Terrace targets have 2 cores). */
+    public static final int CANDIDATE_THREADS = 2;
     /** Evaluation budget of the direct search when no intervals are wanted (proposals, cross-validation). */
     public static final int FAST_MAX_EVALUATIONS = 1200;
     /** Most reweighting passes (noise levels re-estimated from residuals, then refit); stops early when settled. */
@@ -275,8 +277,38 @@ public final class ModelFitter {
             // every combination of discrete choices
             List<Map<String, Double>> combos = combos();
             List<CandidateFit> cands = new ArrayList<>();
-            for (Map<String, Double> combo : combos) {
-                cands.add(fitCandidate(combo));
+            // candidates are independent: fit them on up to CANDIDATE_THREADS threads, each with its own
+            // random stream split off in a fixed order, so the result does not depend on scheduling
+            List<SplittableRandom> streams = new ArrayList<>();
+            for (int k = 0; k < combos.size(); k++) {
+                streams.add(rng.split());
+            }
+            if (combos.size() == 1) {
+                cands.add(fitCandidate(combos.get(0), streams.get(0)));
+            } else {
+                java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(
+                        Math.min(CANDIDATE_THREADS, combos.size()));
+                try {
+                    List<java.util.concurrent.Future<CandidateFit>> fs = new ArrayList<>();
+                    for (int k = 0; k < combos.size(); k++) {
+                        final int kk = k;
+                        fs.add(pool.submit(() -> fitCandidate(combos.get(kk), streams.get(kk))));
+                    }
+                    for (java.util.concurrent.Future<CandidateFit> f : fs) {
+                        try {
+                            cands.add(f.get());
+                        } catch (InterruptedException e) {
+                            Thread.currentThread().interrupt();
+                            throw new IllegalStateException("fit interrupted", e);
+                        } catch (java.util.concurrent.ExecutionException e) {
+                            Throwable cause = e.getCause();
+                            throw cause instanceof RuntimeException ? (RuntimeException) cause
+                                    : new IllegalStateException(cause);
+                        }
+                    }
+                } finally {
+                    pool.shutdownNow();
+                }
             }
             CandidateFit best = null;
             for (CandidateFit cf : cands) {
@@ -770,7 +802,7 @@ public final class ModelFitter {
 
         // ---------------------------------------------------------- fitting one candidate
 
-        CandidateFit fitCandidate(Map<String, Double> combo) {
+        CandidateFit fitCandidate(Map<String, Double> combo, SplittableRandom rng) {
             CandidateFit cf = new CandidateFit();
             cf.combo = combo;
             chooseFree(cf);
@@ -783,7 +815,7 @@ public final class ModelFitter {
             if (!cf.free.isEmpty()) {
                 List<double[]> starts = new ArrayList<>();
                 starts.add(start);
-                int extraStarts = intervals ? 2 : 1;
+                int extraStarts = intervals ? 2 : 0;
                 for (int s = 0; s < extraStarts; s++) {
                     double[] r = new double[start.length];
                     for (int i = 0; i < r.length; i++) {

@@ -106,6 +106,36 @@ public final class CampaignSurrogate {
     public static final double MIN_NOISE_FRACTION = 0.1;
 
     /**
+     * Most runs the growth models are fitted on when proposing (a seeded random subset above this;
+     * {@code terrace fit} always uses every run). The models have a handful of parameters, which a few
+     * dozen runs already pin down; the GP then learns the residual from every run.
+     */
+    public static final int PHYSICS_FIT_RUNS = 40;
+    /** Above this many runs the GP hyperparameter search uses {@link #LARGE_LOG_HPO_STARTS} starts. */
+    public static final int LARGE_LOG_RUNS = 150;
+    /** Hyperparameter starts for large run logs (the likelihood surface is well determined there). */
+    public static final int LARGE_LOG_HPO_STARTS = 3;
+
+    /** A copy of the campaign with at most {@code max} runs, chosen at random with a fixed seed, in log order. */
+    static LoadedCampaign subsample(LoadedCampaign lc, int max, long seed) {
+        List<Run> runs = lc.runLog().runs();
+        if (runs.size() <= max) {
+            return lc;
+        }
+        List<Integer> idx = new ArrayList<>();
+        for (int i = 0; i < runs.size(); i++) {
+            idx.add(i);
+        }
+        java.util.Collections.shuffle(idx, new java.util.Random(seed));
+        List<Integer> keep = new ArrayList<>(idx.subList(0, max));
+        java.util.Collections.sort(keep);
+        List<Run> sub = new ArrayList<>();
+        keep.forEach(i -> sub.add(runs.get(i)));
+        return new LoadedCampaign(lc.campaign(),
+                new dev.terrace.core.runlog.RunLog(lc.runLog().file(), sub, lc.runLog().warnings()), lc.warnings());
+    }
+
+    /**
      * GP settings for measured growth outcomes: the library defaults with a noise floor of 1e-2 of the
      * standardised variance (a noise sd of at least 10 % of the residual spread). Repeat runs of one
      * recipe never agree better than that in practice (common practice: AFM densities and sizes
@@ -149,7 +179,10 @@ public final class CampaignSurrogate {
         FitReport fit = null;
         ModelChain chain = ModelChain.of(List.of(), c.surface());
         if (usePhysics && !c.models().isEmpty()) {
-            fit = ModelFitter.fit(lc, registry, seed, false);
+            notes.addAll(lc.runLog().runs().size() > PHYSICS_FIT_RUNS
+                    ? List.of("growth models fitted on " + PHYSICS_FIT_RUNS + " of the " + lc.runLog().runs().size()
+                    + " runs (a fixed random subset); the Gaussian processes use every run") : List.of());
+            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
                 if (!f.message().isEmpty()) {
@@ -174,6 +207,8 @@ public final class CampaignSurrogate {
             chainAtRuns.add(chain.predict(RecipeConverter.conditions(c, r, false)));
         }
         Map<String, GaussianProcess> gps = new LinkedHashMap<>();
+        Map<String, java.util.concurrent.Callable<GaussianProcess>> gpTasks = new LinkedHashMap<>();
+        Map<String, java.util.concurrent.Callable<ClassModel>> classTasks = new LinkedHashMap<>();
         Map<String, Double> fill = new LinkedHashMap<>();
         Map<String, Boolean> physics = new LinkedHashMap<>();
         int used = 0;
@@ -212,6 +247,9 @@ public final class CampaignSurrogate {
                 pp = prior.stream().mapToDouble(v -> Double.isFinite(v) ? v : mean).toArray();
             }
             GpSettings gs = gpSettings;
+            if (yy.length > LARGE_LOG_RUNS && gs.hpoStarts() > LARGE_LOG_HPO_STARTS) {
+                gs = gs.withHpoStarts(LARGE_LOG_HPO_STARTS);
+            }
             if (minNoiseFraction > 0 && yy.length > 1) {
                 double sdRaw = sd(yy);
                 double[] res = new double[yy.length];
@@ -224,7 +262,9 @@ public final class CampaignSurrogate {
                     gs = gs.withNoiseFloor(Math.max(gs.noiseFloor(), Math.min(floor, 0.5)));
                 }
             }
-            gps.put(o.name(), GaussianProcess.fit(x, yy, pp, gs, seed));
+            final GpSettings gsf = gs;
+            final double[] ppf = pp;
+            gpTasks.put(o.name(), () -> GaussianProcess.fit(x, yy, ppf, gsf, seed));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -244,7 +284,8 @@ public final class CampaignSurrogate {
                 priors.add(classPrior(o, chainAtRuns.get(i)));
                 usedRun[i] = true;
             }
-            cms.put(o.name(), ClassModel.fit(x, labels, o.classes(), priors.toArray(new double[0][]), seed));
+            final double[][] pr = priors.toArray(new double[0][]);
+            classTasks.put(o.name(), () -> ClassModel.fit(x, labels, o.classes(), pr, seed));
         }
         for (boolean b : usedRun) {
             if (b) {
@@ -255,8 +296,41 @@ public final class CampaignSurrogate {
         for (int i = 0; i < ok.length; i++) {
             ok[i] = runs.get(i).ok();
         }
-        SuccessModel sm = SuccessModel.fit(pts, ok, seed);
+        // the GPs, classifiers and the success model are independent: fit them on BUILD_THREADS threads
+        java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(BUILD_THREADS);
+        SuccessModel sm;
+        try {
+            Map<String, java.util.concurrent.Future<GaussianProcess>> gf = new LinkedHashMap<>();
+            gpTasks.forEach((k, t) -> gf.put(k, pool.submit(t)));
+            Map<String, java.util.concurrent.Future<ClassModel>> cf = new LinkedHashMap<>();
+            classTasks.forEach((k, t) -> cf.put(k, pool.submit(t)));
+            java.util.concurrent.Future<SuccessModel> sf = pool.submit(() -> SuccessModel.fit(pts, ok, seed));
+            for (Map.Entry<String, java.util.concurrent.Future<GaussianProcess>> e : gf.entrySet()) {
+                gps.put(e.getKey(), join(e.getValue()));
+            }
+            for (Map.Entry<String, java.util.concurrent.Future<ClassModel>> e : cf.entrySet()) {
+                cms.put(e.getKey(), join(e.getValue()));
+            }
+            sm = join(sf);
+        } finally {
+            pool.shutdownNow();
+        }
         return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used);
+    }
+
+    /** Threads used to fit the independent surrogates (the machines Terrace targets have 2 cores). */
+    public static final int BUILD_THREADS = 2;
+
+    static <T> T join(java.util.concurrent.Future<T> f) {
+        try {
+            return f.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted", e);
+        } catch (java.util.concurrent.ExecutionException e) {
+            Throwable c = e.getCause();
+            throw c instanceof RuntimeException ? (RuntimeException) c : new IllegalStateException(c);
+        }
     }
 
     static double sd(double[] v) {

@@ -63,17 +63,16 @@ final class BenchCommand implements Callable<Integer> {
         }
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
         AtomicInteger done = new AtomicInteger();
-        SampleEfficiency se = new SampleEfficiency(seeds, threads, k -> {
-            int n = done.addAndGet(k);
-            if (!global.quiet && System.console() != null) {
-                spec.commandLine().getErr().print("\rbench: " + n + " trials done");
-                spec.commandLine().getErr().flush();
-            }
-        });
+        SampleEfficiency se0 = new SampleEfficiency(seeds, threads, k -> { });
         long t0 = System.nanoTime();
-        List<SampleEfficiency.Trial> trials = se.run(problems, reg);
-        if (!global.quiet && System.console() != null) {
-            spec.commandLine().getErr().println();
+        List<SampleEfficiency.Trial> trials;
+        try (Progress bar = Progress.start("bench", se0.trialCount(problems), global)) {
+            SampleEfficiency se = new SampleEfficiency(seeds, threads, k -> {
+                synchronized (bar) {
+                    bar.stepTo(done.addAndGet(k));
+                }
+            });
+            trials = se.run(problems, reg);
         }
         out.print(SampleEfficiency.table(trials));
         out.printf(java.util.Locale.ROOT, "(%d trials, %.0f s on %d threads)%n", trials.size(),

@@ -63,7 +63,12 @@ final class FitCommand implements Callable<Integer> {
         if (lc.campaign().models().isEmpty()) {
             throw new JobFailedException("campaign " + lc.campaign().id() + " lists no growth models (models: [])");
         }
-        FitReport report = ModelFitter.fit(lc, reg, seed);
+        FitReport report;
+        try (Progress bar = Progress.startPhases("fit", 1, global)) {
+            bar.message("fitting " + String.join(", ", lc.campaign().models()));
+            report = ModelFitter.fit(lc, reg, seed);
+            bar.step();
+        }
         if (format.equals("json")) {
             out.println(json(report));
         } else {

@@ -148,8 +148,15 @@ final class MapCommand implements Callable<Integer> {
         } catch (IllegalArgumentException ex) {
             throw new CommandLine.ParameterException(cl, "--at: " + ex.getMessage());
         }
-        CampaignSurrogate sur = CampaignSurrogate.build(lc, reg, true, seed);
-        WindowMapResult map = WindowMap.compute(sur, x, y, held, grid, temperatureUncertainty, seed);
+        CampaignSurrogate sur;
+        WindowMapResult map;
+        try (Progress bar = Progress.startPhases("map", 2, global)) {
+            bar.message("fitting models and surrogates");
+            sur = CampaignSurrogate.build(lc, reg, true, seed);
+            bar.step().message("predicting " + grid + " x " + grid + " cells");
+            map = WindowMap.compute(sur, x, y, held, grid, temperatureUncertainty, seed);
+            bar.step();
+        }
         PrintWriter o = cl.getOut();
         o.print(summary(map, c, sur, heldFrom, held));
         o.flush();
@@ -172,7 +179,12 @@ final class MapCommand implements Callable<Integer> {
         if (x != null || y != null) {
             cl.getErr().println("terrace: --pareto searches over every setting; --x and --y are not used");
         }
-        CampaignSurrogate sur = CampaignSurrogate.build(lc, reg, true, seed);
+        CampaignSurrogate sur;
+        try (Progress bar = Progress.startPhases("map", 1, global)) {
+            bar.message("fitting models and surrogates");
+            sur = CampaignSurrogate.build(lc, reg, true, seed);
+            bar.step();
+        }
         ParetoFront f = ParetoFront.compute(sur, pareto, ParetoFront.DEFAULT_POPULATION, ParetoFront.DEFAULT_GENERATIONS,
                 seed);
         if (f.points().isEmpty()) {

@@ -63,7 +63,15 @@ final class ProposeCommand implements Callable<Integer> {
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         ProposeSettings s = ProposeSettings.defaults().withBatch(batch).withSeed(seed).withExplore(explore)
                 .withPhysics(!noPhysics);
-        ProposalSet set = Proposer.propose(lc, reg, s);
+        ProposalSet set;
+        try (Progress bar = Progress.startPhases("propose", 2, global)) {
+            bar.message("fitting models and surrogates");
+            dev.terrace.core.propose.CampaignSurrogate sur = dev.terrace.core.propose.CampaignSurrogate.build(
+                    lc, reg, s.usePhysics(), s.seed());
+            bar.step().message("searching " + batch + " recipe" + (batch == 1 ? "" : "s"));
+            set = Proposer.propose(sur, s);
+            bar.step();
+        }
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
         return 0;
     }

@@ -52,7 +52,12 @@ final class RankCommand implements Callable<Integer> {
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         RunLog cands = RunLogReader.readCandidates(lc.campaign(), candidates);
         ProposeSettings s = ProposeSettings.defaults().withSeed(seed).withPhysics(!noPhysics);
-        CampaignSurrogate sur = CampaignSurrogate.build(lc, reg, s.usePhysics(), seed);
+        CampaignSurrogate sur;
+        try (Progress bar = Progress.startPhases("rank", 1, global)) {
+            bar.message("fitting models and surrogates");
+            sur = CampaignSurrogate.build(lc, reg, s.usePhysics(), seed);
+            bar.step();
+        }
         ProposalSet set = Proposer.rank(sur, cands.runs(), s);
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
         return 0;

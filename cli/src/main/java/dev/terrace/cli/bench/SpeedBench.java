@@ -23,7 +23,8 @@ import java.util.Locale;
 /**
  * The speed benchmark: wall time and peak resident memory of the whole process
  * {@code java -jar terrace.jar propose --batch 4} (JVM start included) on run logs of growing size,
- * made by the virtual chamber (invented data) on the demo campaign's 6 settings. Measured with
+ * made by the virtual chamber (invented data) on the demo campaign's 6 settings, with the launcher's JVM
+ * settings ({@code -XX:TieredStopAtLevel=1}, {@code OPENBLAS_NUM_THREADS=1}). Measured with
  * {@code /usr/bin/time -f "%e %M"}; each size runs once after one warm-up of the smallest size.
  *
  * @since 0.1
@@ -44,8 +45,6 @@ public final class SpeedBench {
         Path dir = Files.createTempDirectory("terrace-speed-");
         StringBuilder sb = new StringBuilder();
         sb.append(String.format(Locale.ROOT, "%8s %10s %14s %12s%n", "runs", "wall s", "peak RSS MB", "s per run"));
-        double prev = Double.NaN;
-        int prevN = 0;
         boolean warm = false;
         for (int n : sizes) {
             Path campaign = makeLog(dir.resolve("n" + n), n);
@@ -56,8 +55,6 @@ public final class SpeedBench {
             double[] m = measure(jar, campaign);
             sb.append(String.format(Locale.ROOT, "%8d %10.2f %14.0f %12.4f%n", n, m[0], m[1] / 1024, m[0] / n));
             log.flush();
-            prev = m[0];
-            prevN = n;
         }
         sb.append("(whole process: JVM start, reading, model fit, GP fits and search; 2-core machine; jar ").append(jar)
                 .append(")\n");
@@ -97,9 +94,12 @@ public final class SpeedBench {
 
     static double[] measure(Path jar, Path campaign) throws Exception {
         Path timeOut = Files.createTempFile("terrace-time-", ".txt");
+        // the same JVM settings as the ./terrace launcher
         ProcessBuilder pb = new ProcessBuilder("/usr/bin/time", "-o", timeOut.toString(), "-f", "%e %M",
-                "java", "-Dorg.slf4j.simpleLogger.defaultLogLevel=error", "-jar", jar.toString(), "propose",
+                "java", "-XX:TieredStopAtLevel=1", "-Dorg.slf4j.simpleLogger.defaultLogLevel=error", "-jar",
+                jar.toString(), "propose",
                 campaign.toString(), "--batch", "4", "--format", "csv", "--quiet");
+        pb.environment().put("OPENBLAS_NUM_THREADS", "1");
         pb.redirectErrorStream(true);
         pb.redirectOutput(ProcessBuilder.Redirect.DISCARD);
         Process pr = pb.start();

@@ -51,6 +51,14 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--residuals", description = "Also list residuals per run (table format).")
     boolean showResiduals;
 
+    @Option(names = "--plot", paramLabel = "FILE.png|FILE.svg",
+            description = {"Also draw the Arrhenius plot: density against 1/kT over the ok runs with the fitted",
+                    "line and its 95 % band (needs island_density and substrate_temperature roles)."})
+    Path plot;
+
+    @Option(names = "--force", description = "Allow --plot to replace an existing file.")
+    boolean force;
+
     @Override
     public Integer call() throws Exception {
         if (!format.equals("table") && !format.equals("json")) {
@@ -62,6 +70,15 @@ final class FitCommand implements Callable<Integer> {
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         if (lc.campaign().models().isEmpty()) {
             throw new JobFailedException("campaign " + lc.campaign().id() + " lists no growth models (models: [])");
+        }
+        if (plot != null) {
+            String name = plot.getFileName().toString().toLowerCase(java.util.Locale.ROOT);
+            if (!name.endsWith(".png") && !name.endsWith(".svg")) {
+                throw new CommandLine.ParameterException(spec.commandLine(), "--plot must end in .png or .svg");
+            }
+            if (java.nio.file.Files.exists(plot) && !force) {
+                throw new CommandLine.ParameterException(spec.commandLine(), plot + " exists already; use --force to replace it");
+            }
         }
         FitReport report;
         try (Progress bar = Progress.startPhases("fit", 1, global)) {
@@ -75,6 +92,9 @@ final class FitCommand implements Callable<Integer> {
             printTable(report, out, showResiduals);
         }
         out.flush();
+        if (plot != null) {
+            arrheniusPlot(lc, err);
+        }
         if (!report.fittedAnything()) {
             StringBuilder sb = new StringBuilder("nothing could be fitted:");
             for (ModelFit f : report.models()) {
@@ -87,6 +107,33 @@ final class FitCommand implements Callable<Integer> {
             throw new JobFailedException(sb.toString());
         }
         return 0;
+    }
+
+    private void arrheniusPlot(LoadedCampaign lc, PrintWriter err) throws Exception {
+        var c = lc.campaign();
+        var density = c.outcomes().stream().filter(o -> !o.isClass() && o.role() == dev.terrace.spi.Role.ISLAND_DENSITY)
+                .findFirst().orElse(null);
+        var temp = c.parameters().stream().filter(p -> !p.isCategorical()
+                && p.role() == dev.terrace.spi.Role.SUBSTRATE_TEMPERATURE).findFirst().orElse(null);
+        if (density == null || temp == null) {
+            throw new JobFailedException("no Arrhenius plot: the campaign needs an outcome with role island_density "
+                    + "and a setting with role substrate_temperature");
+        }
+        java.util.List<double[]> pts = ReportCommand.arrheniusPoints(lc, density, temp);
+        if (pts.stream().mapToDouble(p -> p[0]).distinct().count() < 2) {
+            throw new JobFailedException("no Arrhenius plot: fewer than two ok runs at different temperatures measured "
+                    + density.name());
+        }
+        double[] t = pts.stream().mapToDouble(p -> p[0]).toArray();
+        double[] n = pts.stream().mapToDouble(p -> p[1]).toArray();
+        dev.terrace.core.fit.Arrhenius a = dev.terrace.core.fit.Arrhenius.fit(t, n);
+        var chart = dev.terrace.cli.plot.Plots.arrhenius(t, n, a.energyEv(), a.lo(), a.hi(),
+                density.name() + " (" + ReportCommand.chartUnit(density.unit().symbol()) + ")");
+        dev.terrace.cli.plot.Plots.save(chart, plot, 800, 600, force);
+        err.println(String.format(java.util.Locale.ROOT, "wrote %s (effective activation energy %.3f eV%s over %d runs)",
+                plot, a.energyEv(), Double.isFinite(a.lo()) ? String.format(java.util.Locale.ROOT, ", 95 %% %.3f to %.3f",
+                        a.lo(), a.hi()) : "", a.n()));
+        err.flush();
     }
 
     static void printTable(FitReport r, PrintWriter out, boolean residuals) {

@@ -191,4 +191,17 @@ class CliTest {
         assertTrue(o.err().contains("no usable run"), o.err());
         assertFalse(o.out().contains("NaN"), o.out());
     }
+
+    @Test
+    void fitDrawsTheArrheniusPlot(@TempDir Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        Path png = tmp.resolve("arrhenius.png");
+        Outcome o = run("fit", campaign.toString(), "--plot", png.toString(), "--quiet");
+        assertEquals(0, o.code(), o.err());
+        assertTrue(o.err().contains("effective activation energy"), o.err());
+        java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(png.toFile());
+        assertEquals(800, img.getWidth());
+        assertEquals(2, run("fit", campaign.toString(), "--plot", png.toString()).code(), "never overwrites");
+        assertEquals(2, run("fit", campaign.toString(), "--plot", tmp.resolve("a.gif").toString()).code());
+    }
 }

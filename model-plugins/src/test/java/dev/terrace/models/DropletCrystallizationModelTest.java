@@ -18,8 +18,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
  * Contract cases plus published regime checks for {@link DropletCrystallizationModel}. Check values come
- * from /work/shared/reference/physics-check-values.md §2; each assertion names its source. Group-V fluxes
- * are converted from flux-gauge readings with {@link RoughBeamFlux}.
+ * from the researched physics check values (§2; their original sources are named beside each value); each
+ * assertion names its source. Group-V fluxes are converted from flux-gauge readings with {@link RoughBeamFlux}.
  */
 class DropletCrystallizationModelTest extends GrowthModelContractTest {
 

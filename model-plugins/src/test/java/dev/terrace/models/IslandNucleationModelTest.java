@@ -15,8 +15,8 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Contract cases plus golden values for {@link IslandNucleationModel}. Check values come from
- * /work/shared/reference/physics-check-values.md; each assertion names its source.
+ * Contract cases plus golden values for {@link IslandNucleationModel}. Check values come from the researched
+ * physics check values (their original sources are named beside each value); each assertion names its source.
  */
 class IslandNucleationModelTest extends GrowthModelContractTest {
 

@@ -17,8 +17,8 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Contract cases plus golden values for {@link StepFlowModel}. Check values come from
- * /work/shared/reference/physics-check-values.md §3; each assertion names its source.
+ * Contract cases plus golden values for {@link StepFlowModel}. Check values come from the researched physics
+ * check values (§3; their original sources are named beside each value); each assertion names its source.
  */
 class StepFlowModelTest extends GrowthModelContractTest {
 

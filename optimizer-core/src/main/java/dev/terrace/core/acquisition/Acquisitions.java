@@ -398,7 +398,7 @@ public final class Acquisitions {
 
     /**
      * Constrained expected improvement for minimisation (Schonlau, Welch &amp; Jones 1998, IMS
-     * Lecture Notes 34:11; Gardner, Kusner, Xu, Weinberger &amp; Cunningham 2014, <i>ICML</i>):
+     * Monograph Series 34:11; Gardner, Kusner, Xu, Weinberger &amp; Cunningham 2014, <i>ICML</i>):
      * cEI = EI(&mu;, &sigma;; f_min) &times; &Pi;_k P(feasible_k). The incumbent f_min should be
      * the best <em>feasible</em> observation; while none exists, maximise the product of the
      * feasibility probabilities alone (Gelbart, Snoek &amp; Adams 2014, <i>UAI</i>).

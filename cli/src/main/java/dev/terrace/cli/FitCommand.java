@@ -26,7 +26,7 @@ import java.util.concurrent.Callable;
 
 /** {@code terrace fit CAMPAIGN}: fits the campaign's growth models to its ok runs. */
 @Command(name = "fit", mixinStandardHelpOptions = true,
-        description = {"Fit the campaign's growth models to its ok runs, with 95 % intervals, held parameters",
+        description = {"Fit the campaign's growth models to its ok runs, with 95 %% intervals, held parameters",
                 "and their reasons, discrete choices by AICc, and residuals per run."})
 final class FitCommand implements Callable<Integer> {
 
@@ -53,7 +53,7 @@ final class FitCommand implements Callable<Integer> {
 
     @Option(names = "--plot", paramLabel = "FILE.png|FILE.svg",
             description = {"Also draw the Arrhenius plot: density against 1/kT over the ok runs with the fitted",
-                    "line and its 95 % band (needs island_density and substrate_temperature roles)."})
+                    "line and its 95 %% band (needs island_density and substrate_temperature roles)."})
     Path plot;
 
     @Option(names = "--force", description = "Allow --plot to replace an existing file.")

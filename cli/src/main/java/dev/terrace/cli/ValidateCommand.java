@@ -32,7 +32,7 @@ import java.util.concurrent.Callable;
  */
 @Command(name = "validate", mixinStandardHelpOptions = true,
         description = {"Hold out each ok run in turn, refit the growth models, the GP and both together to the",
-                "other runs, and score how well each predicts the held-out run (RMSE, 90 % interval",
+                "other runs, and score how well each predicts the held-out run (RMSE, 90 %% interval",
                 "coverage, MSLL; log loss and accuracy for classes) against the runs' plain mean.",
                 "Failed runs always stay in training. The run log is never changed."})
 final class ValidateCommand implements Callable<Integer> {
@@ -55,6 +55,11 @@ final class ValidateCommand implements Callable<Integer> {
     @Option(names = "--seed", defaultValue = "" + DEFAULT_SEED,
             description = "Seed of every refit; the same seed gives the same scores (default: ${DEFAULT-VALUE}).")
     long seed;
+
+    @Option(names = "--plots", paramLabel = "DIR",
+            description = {"Also write a parity plot (predicted against measured, with 90 %% intervals) per numeric",
+                    "outcome into DIR as parity-<outcome>.png; existing files are never replaced."})
+    Path plots;
 
     @Override
     public Integer call() throws Exception {
@@ -86,6 +91,20 @@ final class ValidateCommand implements Callable<Integer> {
             printTable(report, seed, lc.campaign().models().isEmpty(), out);
         }
         out.flush();
+        if (plots != null) {
+            for (var o : report.outcomes()) {
+                if (o.scale().equals("class") || o.parity().isEmpty()) {
+                    continue;
+                }
+                var oc = lc.campaign().outcome(o.outcome()).orElseThrow();
+                var chart = dev.terrace.cli.plot.Plots.parity(o.outcome() + " ("
+                        + ReportCommand.chartUnit(oc.unit().symbol()) + ")", o.scale().equals("log10"), o.parity());
+                Path f = plots.resolve("parity-" + o.outcome() + ".png");
+                dev.terrace.cli.plot.Plots.save(chart, f, 800, 640, false);
+                err.println("wrote " + f);
+            }
+            err.flush();
+        }
         return 0;
     }
 

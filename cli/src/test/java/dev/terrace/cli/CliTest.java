@@ -204,4 +204,16 @@ class CliTest {
         assertEquals(2, run("fit", campaign.toString(), "--plot", png.toString()).code(), "never overwrites");
         assertEquals(2, run("fit", campaign.toString(), "--plot", tmp.resolve("a.gif").toString()).code());
     }
+
+    @Test
+    void validateWritesParityPlots(@TempDir Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        Path dir = tmp.resolve("plots");
+        Outcome o = run("validate", campaign.toString(), "--plots", dir.toString(), "--quiet");
+        assertEquals(0, o.code(), o.err());
+        for (String name : List.of("parity-dot_density.png", "parity-dot_diameter.png")) {
+            java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(dir.resolve(name).toFile());
+            assertEquals(800, img.getWidth(), name);
+        }
+    }
 }

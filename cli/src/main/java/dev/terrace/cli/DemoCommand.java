@@ -53,14 +53,14 @@ final class DemoCommand implements Callable<Integer> {
         out.println("  (" + DemoCampaign.SCENARIO + ")");
         out.println();
         out.println("== terrace check " + campaign);
-        LoadedCampaign lc = LoadedCampaign.open(campaign, Registries.load(global, err));
+        dev.terrace.core.plugins.PluginRegistry reg = Registries.load(global, err);
+        LoadedCampaign lc = LoadedCampaign.open(campaign, reg);
         CheckCommand.print(lc, out, global.quiet);
         for (Diagnostic d : lc.warnings()) {
             err.println(d);
         }
         out.println();
         out.println("== terrace fit " + campaign);
-        dev.terrace.core.plugins.PluginRegistry reg = Registries.load(global, err);
         dev.terrace.core.fit.FitResults.FitReport fit = dev.terrace.core.fit.ModelFitter.fit(lc, reg, FitCommand.DEFAULT_SEED);
         FitCommand.printTable(fit, out, false);
         out.println();

@@ -111,10 +111,8 @@ final class FitCommand implements Callable<Integer> {
 
     private void arrheniusPlot(LoadedCampaign lc, PrintWriter err) throws Exception {
         var c = lc.campaign();
-        var density = c.outcomes().stream().filter(o -> !o.isClass() && o.role() == dev.terrace.spi.Role.ISLAND_DENSITY)
-                .findFirst().orElse(null);
-        var temp = c.parameters().stream().filter(p -> !p.isCategorical()
-                && p.role() == dev.terrace.spi.Role.SUBSTRATE_TEMPERATURE).findFirst().orElse(null);
+        var density = ReportCommand.densityOutcome(c);
+        var temp = ReportCommand.temperatureSetting(c);
         if (density == null || temp == null) {
             throw new JobFailedException("no Arrhenius plot: the campaign needs an outcome with role island_density "
                     + "and a setting with role substrate_temperature");

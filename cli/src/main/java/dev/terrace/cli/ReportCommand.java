@@ -420,10 +420,8 @@ final class ReportCommand implements Callable<Integer> {
 
     private ArrheniusPanel arrhenius(LoadedCampaign lc, Map<String, String> problems) {
         Campaign c = lc.campaign();
-        OutcomeSpec density = c.outcomes().stream().filter(o -> !o.isClass() && o.role() == Role.ISLAND_DENSITY)
-                .findFirst().orElse(null);
-        ParameterSpec temp = c.parameters().stream()
-                .filter(p -> !p.isCategorical() && p.role() == Role.SUBSTRATE_TEMPERATURE).findFirst().orElse(null);
+        OutcomeSpec density = densityOutcome(c);
+        ParameterSpec temp = temperatureSetting(c);
         if (density == null || temp == null) {
             problems.put(ReportContent.ARRHENIUS, "No Arrhenius plot: it needs an outcome with role island_density "
                     + "and a setting with role substrate_temperature"
@@ -446,6 +444,18 @@ final class ReportCommand implements Callable<Integer> {
                 + "line" + (Double.isFinite(a.lo()) ? " and the band of its 95 % interval" : "") + ".",
                 () -> Plots.arrhenius(t, n, a.energyEv(), a.lo(), a.hi(), label), ReportContent.ARRHENIUS, problems);
         return new ArrheniusPanel(density.name(), temp.name(), a, fig);
+    }
+
+    /** @return the numeric outcome with role island_density, or null */
+    static OutcomeSpec densityOutcome(Campaign c) {
+        return c.outcomes().stream().filter(o -> !o.isClass() && o.role() == Role.ISLAND_DENSITY)
+                .findFirst().orElse(null);
+    }
+
+    /** @return the numeric setting with role substrate_temperature, or null */
+    static ParameterSpec temperatureSetting(Campaign c) {
+        return c.parameters().stream()
+                .filter(p -> !p.isCategorical() && p.role() == Role.SUBSTRATE_TEMPERATURE).findFirst().orElse(null);
     }
 
     /** (temperature in K, density) of every ok run that measured a positive density. */

@@ -492,8 +492,6 @@ public final class CampaignSurrogate {
             next.put(g.getKey(), g.getValue().condition(p, e.mean().get(g.getKey())[0],
                     physicsPrior.get(o.name()) ? prior : Double.NaN));
         }
-        List<DesignPoint> pts = new ArrayList<>(runPoints);
-        pts.add(p);
         return new CampaignSurrogate(lc, space, chain, fit, next, priorFill, physicsPrior, classModels, success,
                 runPoints, encodedRuns, notes, runsUsed);
     }

@@ -119,10 +119,11 @@ public final class Proposer {
             chosen = search(sur, s);
         }
         List<Proposal> out = new ArrayList<>();
+        Double inc = incumbent(sur); // computed once: it evaluates the surrogate at every qualifying run
         for (DesignPoint p : chosen) {
             Map<String, Double> rounded = RecipeRounding.round(space, p);
             DesignPoint rp = space.encode(rounded, space.categories(p));
-            out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p)));
+            out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p), inc));
         }
         out.sort(Comparator.comparingDouble(Proposal::yield).reversed().thenComparing(Proposal::id));
         List<Proposal> ranked = new ArrayList<>();
@@ -161,6 +162,7 @@ public final class Proposer {
     public static ProposalSet rank(CampaignSurrogate sur, List<Run> candidates, ProposeSettings s) {
         DesignSpace space = sur.space();
         List<Proposal> out = new ArrayList<>();
+        Double inc = incumbent(sur); // computed once: it evaluates the surrogate at every qualifying run
         List<String> notes = new ArrayList<>(sur.notes());
         for (Run r : candidates) {
             DesignPoint p = space.encode(r.numbers(), r.categories());
@@ -172,7 +174,7 @@ public final class Proposer {
             for (ParameterSpec ps : space.continuous()) {
                 nums.put(ps.name(), r.numbers().get(ps.name()));
             }
-            Proposal pr = describe(sur, p, s, "ranking", nums, space.categories(p));
+            Proposal pr = describe(sur, p, s, "ranking", nums, space.categories(p), inc);
             out.add(new Proposal(r.runId(), 0, pr.yield(), pr.acquisition(), pr.recipe(), pr.numeric(), pr.classes(),
                     pr.success(), pr.nearestRun(), pr.nearestDistance(), pr.reason(), pr.flags(), pr.insideBox(),
                     pr.keepsLimits()));
@@ -449,11 +451,11 @@ public final class Proposer {
     // ------------------------------------------------------------------ description
 
     static Proposal describe(CampaignSurrogate sur, DesignPoint p, ProposeSettings s, String mode,
-                             Map<String, Double> numbers, Map<String, String> categories) {
+                             Map<String, Double> numbers, Map<String, String> categories, Double incumbent) {
         Campaign c = sur.campaign();
         DesignSpace space = sur.space();
         Evaluation e = sur.evaluate(List.of(p));
-        Scores sc = score(sur, e, s.explore(), incumbent(sur));
+        Scores sc = score(sur, e, s.explore(), incumbent);
         double yield = clamp01(Math.exp(sc.logYield()[0]));
         double acq = Math.exp(sc.logAcq()[0]);
         Map<String, Object> recipe = new LinkedHashMap<>();

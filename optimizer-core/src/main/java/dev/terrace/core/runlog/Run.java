@@ -17,10 +17,12 @@ import java.util.OptionalDouble;
  * @param proposal   id of the proposal the run followed, or null
  * @param notes      free text, or null
  * @param line       the line of the run in the run log (1-based)
+ * @param censored   numeric outcomes written as {@code <X} or {@code >X}, by column name; a column is
+ *                   never both here and in {@code numbers}; copied, never null
  * @since 0.1
  */
 public record Run(String runId, Map<String, Double> numbers, Map<String, String> categories, Status status,
-                  String date, String proposal, String notes, int line) {
+                  String date, String proposal, String notes, int line, Map<String, Censored> censored) {
 
     /** Outcome of a run as a whole. */
     public enum Status {
@@ -44,11 +46,34 @@ public record Run(String runId, Map<String, Double> numbers, Map<String, String>
         });
         numbers = Map.copyOf(numbers);
         categories = Map.copyOf(categories);
+        censored = Map.copyOf(censored);
+        for (String column : censored.keySet()) {
+            if (numbers.containsKey(column)) {
+                throw new IllegalArgumentException("run " + runId + " has column " + column
+                        + " both as a number and as a censored value");
+            }
+        }
+    }
+
+    /** A run without censored cells. */
+    public Run(String runId, Map<String, Double> numbers, Map<String, String> categories, Status status,
+               String date, String proposal, String notes, int line) {
+        this(runId, numbers, categories, status, date, proposal, notes, line, Map.of());
     }
 
     /**
+     * @param column a numeric outcome column
+     * @return its censored value ({@code <X} or {@code >X}), or empty when the cell holds a plain number
+     *         or nothing
+     */
+    public Optional<Censored> censored(String column) {
+        return Optional.ofNullable(censored.get(column));
+    }
+
+
+    /**
      * @param column a numeric column
-     * @return its value, or empty when not measured
+     * @return its value, or empty when not measured or censored (see {@link #censored(String)})
      */
     public OptionalDouble number(String column) {
         Double v = numbers.get(column);

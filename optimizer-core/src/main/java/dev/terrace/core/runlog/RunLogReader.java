@@ -5,6 +5,7 @@ import dev.terrace.core.DidYouMean;
 import dev.terrace.core.InputException;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
+import dev.terrace.core.campaign.Scale;
 import dev.terrace.core.campaign.ParameterSpec;
 import dev.terrace.core.units.Unit;
 import dev.terrace.core.units.Units;
@@ -344,6 +345,7 @@ public final class RunLogReader {
         String runId = autoId;
         Map<String, Double> numbers = new LinkedHashMap<>();
         Map<String, String> categories = new LinkedHashMap<>();
+        Map<String, Censored> censored = new LinkedHashMap<>();
         Run.Status status = Run.Status.OK;
         String date = null;
         String proposal = null;
@@ -386,10 +388,7 @@ public final class RunLogReader {
                     if (o.isClass()) {
                         readChoice(diags, file, cell, column.name(), t, o.classes(), categories);
                     } else {
-                        Double v = readNumber(diags, file, cell, column.name(), t, o.unit(), campaign);
-                        if (v != null) {
-                            numbers.put(column.name(), v);
-                        }
+                        readOutcomeNumber(diags, file, cell, o, t, campaign, numbers, censored);
                     }
                     break;
                 case STATUS:
@@ -425,7 +424,7 @@ public final class RunLogReader {
         if (runId == null || errorCount(diags) > before) {
             return null;
         }
-        return new Run(runId, numbers, categories, status, date, proposal, notes, row.line());
+        return new Run(runId, numbers, categories, status, date, proposal, notes, row.line(), censored);
     }
 
     private static void readChoice(List<Diagnostic> diags, Path file, CsvTokenizer.Cell cell, String name,
@@ -440,6 +439,54 @@ public final class RunLogReader {
         String hint = DidYouMean.suggest(t, allowed).map(h -> "; did you mean '" + h + "'?").orElse("");
         error(diags, file, cell, "column '" + name + "' expects " + oneOf(allowed) + ", found '"
                 + shown(t) + "'" + hint);
+    }
+
+    /**
+     * Reads a numeric outcome cell: a plain number, or a censored value {@code <X} (below X, for
+     * example below detection) or {@code >X} (above X). On a {@code scale: log} outcome a plain value
+     * of zero or below cannot be used, and the message suggests the censored form instead.
+     */
+    private static void readOutcomeNumber(List<Diagnostic> diags, Path file, CsvTokenizer.Cell cell,
+                                          OutcomeSpec o, String t, Campaign campaign, Map<String, Double> numbers,
+                                          Map<String, Censored> censored) {
+        if (t.isEmpty()) {
+            return;
+        }
+        char first = t.charAt(0);
+        if (first == '<' || first == '>') {
+            Censored.Side side = first == '<' ? Censored.Side.BELOW : Censored.Side.ABOVE;
+            String rest = t.substring(1).strip();
+            if (rest.startsWith("=")) {
+                rest = rest.substring(1).strip(); // "<=X" reads as "<X": a bound, not an exact value
+            }
+            if (rest.isEmpty()) {
+                error(diags, file, cell, "column '" + o.name() + "' holds '" + shown(t) + "' with no bound;"
+                        + " write " + side.symbol() + "X with X a number, for example " + side.symbol() + "1e8");
+                return;
+            }
+            Double bound = readNumber(diags, file, cell, o.name(), rest, o.unit(), campaign);
+            if (bound == null) {
+                return;
+            }
+            if (o.scale() == Scale.LOG && bound <= 0) {
+                error(diags, file, cell, "column '" + o.name() + "' is on a log scale, so the bound in '"
+                        + shown(t) + "' must be above zero (for example <1e8 for 'below 1e8')");
+                return;
+            }
+            censored.put(o.name(), new Censored(side, bound));
+            return;
+        }
+        Double v = readNumber(diags, file, cell, o.name(), t, o.unit(), campaign);
+        if (v == null) {
+            return;
+        }
+        if (o.scale() == Scale.LOG && v <= 0) {
+            error(diags, file, cell, "column '" + o.name() + "' is on a log scale and cannot hold " + shown(t)
+                    + "; if nothing was detected, write the detection limit as a censored value such as <1e8"
+                    + " (meaning below 1e8" + unitSuffix(o.unit()) + ")");
+            return;
+        }
+        numbers.put(o.name(), v);
     }
 
     /** Parses and checks a numeric cell; returns null when empty or wrong (the error is added). */

@@ -32,7 +32,7 @@ public final class RunLogWriter {
         Objects.requireNonNull(campaign, "campaign");
         StringBuilder sb = new StringBuilder();
         sb.append("# Run log of campaign '").append(oneLine(campaign.id())).append("': one row per growth run.")
-                .append(" An empty cell means not measured.\n");
+                .append(" An empty cell means not measured; <X or >X means below or above X (for example <1e8 when nothing was detected).\n");
         List<String> units = new ArrayList<>();
         for (ParameterSpec p : campaign.parameters()) {
             units.add(p.name() + " " + (p.isCategorical() ? String.join("|", p.choices()) : unitText(p.unit())));

@@ -17,6 +17,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.util.List;
+import java.util.Optional;
 
 import static dev.terrace.core.runlog.RunLogFixtures.FULL_HEADER;
 import static dev.terrace.core.runlog.RunLogFixtures.RUNS;
@@ -382,8 +383,45 @@ class RunLogReaderTest {
     @Test
     void zeroIsAcceptedForNonNegativeQuantities() throws Exception {
         // A closed arsenic valve or no anneal are real recipes (common practice), so 0 is allowed.
-        RunLog log = read("run_id,as_bep,anneal_t,density\nA,0,0,0\n");
-        assertEquals(0.0, log.runs().get(0).number("density").getAsDouble());
+        RunLog log = read("run_id,as_bep,anneal_t,diameter\nA,0,0,0\n");
+        assertEquals(0.0, log.runs().get(0).number("anneal_t").getAsDouble());
+        assertEquals(0.0, log.runs().get(0).number("diameter").getAsDouble());
+    }
+
+    @Test
+    void zeroOnALogScaleOutcomeIsAnErrorThatSuggestsACensoredValue() {
+        // density is declared scale: log; log10(0) does not exist, so "no dots seen" must be written
+        // as a bound (below the detection limit), not as 0.
+        Diagnostic d = onlyError("run_id,t_sub,density\nA,500,2e9\nB,480,0\n");
+        assertAt(d, 3, 7);
+        assertMentions(d, "'density' is on a log scale", "<1e8");
+    }
+
+    @Test
+    void censoredCellsAreReadAsBoundsNotNumbers() throws Exception {
+        RunLog log = read("run_id,density,diameter\nA,<1e8,>60\nB, < 5e7 ,40\nC,<=2e8,\n");
+        Run a = log.runs().get(0);
+        assertEquals(Optional.of(Censored.below(1e8)), a.censored("density"));
+        assertEquals(Optional.of(Censored.above(60)), a.censored("diameter"));
+        assertFalse(a.number("density").isPresent(), "a censored cell is not a plain number");
+        Run b = log.runs().get(1);
+        assertEquals(Optional.of(Censored.below(5e7)), b.censored("density"));
+        assertEquals(40.0, b.number("diameter").getAsDouble());
+        assertTrue(b.censored("diameter").isEmpty());
+        assertEquals(Optional.of(Censored.below(2e8)), log.runs().get(2).censored("density"));
+    }
+
+    @ParameterizedTest(name = "{0} is rejected")
+    @CsvSource(delimiter = '|', value = {
+        "<    | with no bound",
+        "<abc | holds the text 'abc'",
+        "<0   | must be above zero",
+        ">-1  | cannot be negative",
+    })
+    void badCensoredCellsArePositioned(String cell, String expected) {
+        Diagnostic d = onlyError("run_id,density\nA," + cell + "\n");
+        assertAt(d, 2, 3);
+        assertMentions(d, expected);
     }
 
     @Test

@@ -16,4 +16,6 @@ final class CandidateFit {
     double m2ll;
     int k;
     Map<String, Double> sigma = new LinkedHashMap<>();
+    /** True when the check at the fitted values changed which parameters are free. */
+    boolean freeSetChanged;
 }

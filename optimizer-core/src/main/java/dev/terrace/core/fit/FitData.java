@@ -8,6 +8,7 @@ import dev.terrace.core.campaign.Scale;
 import dev.terrace.core.fit.FitResults.Excluded;
 import dev.terrace.core.model.ModelChain;
 import dev.terrace.core.model.RecipeConverter;
+import dev.terrace.core.runlog.Censored;
 import dev.terrace.core.runlog.Run;
 import dev.terrace.spi.Conditions;
 import dev.terrace.spi.GrowthModel;
@@ -42,6 +43,14 @@ abstract class FitData {
     final List<Excluded> excluded = new ArrayList<>();
     final List<String> numericOutcomes = new ArrayList<>();
     boolean hasClass;
+    /** True when some numeric observation is censored ({@code <X} or {@code >X}): the Tobit terms apply. */
+    boolean hasCensored;
+    /**
+     * Parameters held at a value another model of the chain fitted (same meaning), with the reason;
+     * they are neither defaults nor free.
+     */
+    final Map<String, Double> shared = new LinkedHashMap<>();
+    final Map<String, String> sharedReason = new LinkedHashMap<>();
     int maxEvaluations = 3000;
     boolean intervals = true;
 
@@ -63,23 +72,51 @@ abstract class FitData {
     }
 
 
-    /** Picks the runs and observations; runs are checked at default parameters. */
+    /**
+     * Picks the runs and observations. Runs are left out here only for reasons that do not depend on
+     * the parameter values: a failed run, no measured outcome this model predicts, a recipe without an
+     * input the model needs, or a prediction that is {@linkplain dev.terrace.spi.Validity#notApplicable
+     * not applicable} whatever the parameters (a solid deposit, no flux). A run whose prediction is
+     * outside the model only at the default values stays: the fit decides at the fitted values.
+     */
     void collect(ParameterValues defaults) {
         ModelChain.Step step = new ModelChain.Step(model, defaults);
         ModelChain self = ModelChain.of(List.of(step), c.surface());
+        String measuredNames = String.join(", ", outs.stream().map(OutcomeSpec::name).toList());
         for (Run r : allRuns) {
             if (!r.ok()) {
+                excluded.add(new Excluded(r.runId(), "the run failed (status failed): no sample to measure"));
                 continue;
             }
-            boolean measured = false;
+            List<Obs> runObs = new ArrayList<>();
+            List<String> unusable = new ArrayList<>();
+            int idx = used.size();
             for (OutcomeSpec o : outs) {
-                if (o.isClass() ? r.category(o.name()).isPresent() : r.number(o.name()).isPresent()) {
-                    measured = true;
+                if (o.isClass()) {
+                    r.category(o.name()).ifPresent(v -> runObs.add(Obs.exact(idx, o, Double.NaN, v)));
+                    continue;
+                }
+                var v = r.number(o.name());
+                var cens = r.censored(o.name());
+                if (v.isPresent()) {
+                    if (o.scale() == Scale.LOG && !(v.getAsDouble() > 0)) {
+                        unusable.add(o.name() + " " + fmt(v.getAsDouble()) + " is not positive on a log-scale"
+                                + " outcome (write <X for a value below detection)");
+                    } else {
+                        runObs.add(Obs.exact(idx, o, scaled(o, v.getAsDouble()), null));
+                    }
+                } else if (cens.isPresent()) {
+                    Censored cv = cens.get();
+                    if (o.scale() == Scale.LOG && !(cv.bound() > 0)) {
+                        unusable.add(o.name() + " " + cv + " carries no information on a log-scale outcome");
+                    } else {
+                        runObs.add(Obs.censored(idx, o, scaled(o, cv.bound()), cv.side()));
+                    }
                 }
             }
-            if (!measured) {
-                excluded.add(new Excluded(r.runId(), "measured none of "
-                        + String.join(", ", outs.stream().map(OutcomeSpec::name).toList())));
+            if (runObs.isEmpty()) {
+                excluded.add(new Excluded(r.runId(), unusable.isEmpty() ? "measured none of " + measuredNames
+                        : String.join("; ", unusable)));
                 continue;
             }
             Conditions cond = conditions(r);
@@ -94,31 +131,65 @@ abstract class FitData {
                 continue;
             }
             Prediction p = self.safePredict(step, cond);
-            if (!p.validity().valid()) {
+            if (!p.validity().valid() && !p.validity().dependsOnParameters()) {
                 excluded.add(new Excluded(r.runId(), p.validity().reason()));
                 continue;
             }
-            int idx = used.size();
             used.add(r);
             conds.add(cond);
-            for (OutcomeSpec o : outs) {
-                if (o.isClass()) {
-                    r.category(o.name()).ifPresent(v -> obs.add(new Obs(idx, o, Double.NaN, v)));
-                } else {
-                    var v = r.number(o.name());
-                    if (v.isPresent() && (o.scale() != Scale.LOG || v.getAsDouble() > 0)) {
-                        obs.add(new Obs(idx, o, scaled(o, v.getAsDouble()), null));
-                    }
-                }
-            }
+            obs.addAll(runObs);
         }
         for (Obs o : obs) {
             if (o.isClass()) {
                 hasClass = true;
-            } else if (!numericOutcomes.contains(o.outcome().name())) {
-                numericOutcomes.add(o.outcome().name());
+            } else {
+                if (!numericOutcomes.contains(o.outcome().name())) {
+                    numericOutcomes.add(o.outcome().name());
+                }
+                if (o.isCensored()) {
+                    hasCensored = true;
+                }
             }
         }
+    }
+
+    /**
+     * Leaves runs out after a fit (their predictions are outside the model at the fitted values) and
+     * renumbers the observations of the others.
+     *
+     * @param drop    indices into {@link #used}
+     * @param reasons the reason for each, in the same order
+     */
+    void dropRuns(List<Integer> drop, List<String> reasons) {
+        List<Run> keptRuns = new ArrayList<>();
+        List<Conditions> keptConds = new ArrayList<>();
+        int[] newIndex = new int[used.size()];
+        for (int i = 0; i < used.size(); i++) {
+            int k = drop.indexOf(i);
+            if (k >= 0) {
+                newIndex[i] = -1;
+                excluded.add(new Excluded(used.get(i).runId(), reasons.get(k)));
+            } else {
+                newIndex[i] = keptRuns.size();
+                keptRuns.add(used.get(i));
+                keptConds.add(conds.get(i));
+            }
+        }
+        List<Obs> keptObs = new ArrayList<>();
+        for (Obs o : obs) {
+            if (newIndex[o.run()] >= 0) {
+                keptObs.add(o.withRun(newIndex[o.run()]));
+            }
+        }
+        used.clear();
+        used.addAll(keptRuns);
+        conds.clear();
+        conds.addAll(keptConds);
+        obs.clear();
+        obs.addAll(keptObs);
+        hasClass = obs.stream().anyMatch(Obs::isClass);
+        hasCensored = obs.stream().anyMatch(Obs::isCensored);
+        numericOutcomes.removeIf(n -> obs.stream().noneMatch(o -> !o.isClass() && o.outcome().name().equals(n)));
     }
 
     /** Measured conditions of a run plus what upstream models predict for the roles it lacks. */
@@ -162,6 +233,7 @@ abstract class FitData {
         for (ModelParameter p : params) {
             m.put(p.name(), p.defaultValue());
         }
+        m.putAll(shared);
         m.putAll(combo);
         for (int i = 0; i < free.size(); i++) {
             ModelParameter p = free.get(i);
@@ -198,9 +270,17 @@ abstract class FitData {
         return out;
     }
 
-    /** Predicted value on the fitted scale, or NaN when not predicted/invalid. */
+    /**
+     * True when a prediction can enter the likelihood: valid, or outside the model only at these
+     * parameter values (the model's values then serve as its extrapolation while the fit moves on).
+     */
+    static boolean usable(Prediction p) {
+        return p.validity().valid() || p.validity().dependsOnParameters();
+    }
+
+    /** Predicted value on the fitted scale, or NaN when not predicted or not applicable. */
     double predictedScaled(Prediction p, OutcomeSpec o) {
-        if (!p.validity().valid()) {
+        if (!usable(p)) {
             return Double.NaN;
         }
         var v = p.value(o.role());
@@ -215,10 +295,10 @@ abstract class FitData {
     }
 
     double classProbability(Prediction p, OutcomeSpec o, String cls) {
-        if (!p.validity().valid()) {
+        Map<String, Double> probs = usable(p) ? p.classProbabilities(o.role()) : Map.of();
+        if (probs.isEmpty()) {
             return PROBABILITY_FLOOR;
         }
-        Map<String, Double> probs = p.classProbabilities(o.role());
         double total = 0;
         for (String k : o.classes()) {
             total += Math.max(probs.getOrDefault(k, 0.0), PROBABILITY_FLOOR);

@@ -28,6 +28,7 @@ import org.apache.commons.math3.optim.univariate.SearchInterval;
 import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
 import org.apache.commons.math3.util.Pair;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
@@ -38,22 +39,59 @@ abstract class FitOptimizer extends FreeParameters {
     FitOptimizer(Campaign c, List<Run> runs, GrowthModel model, ModelChain upstream, SplittableRandom rng) {
         super(c, runs, model, upstream, rng);
     }
-    // ---------------------------------------------------------- fitting one candidate
-
+    /**
+     * Fits one combination of discrete choices. The free parameters are chosen at the defaults, fitted,
+     * chosen again at the fitted values and, when the choice changed, refitted from there (at most
+     * {@link ModelFitter#FREE_SET_RECHECKS} times), so what is free does not hinge on defaults the runs
+     * contradict.
+     */
     CandidateFit fitCandidate(Map<String, Double> combo, SplittableRandom rng) {
         CandidateFit cf = new CandidateFit();
         cf.combo = combo;
-        chooseFree(cf);
+        chooseFree(cf, Map.of());
+        fitFree(cf, Map.of(), rng, intervals ? 2 : 0);
+        for (int round = 0; round < FREE_SET_RECHECKS && !cf.free.isEmpty(); round++) {
+            Map<String, Double> fitted = new LinkedHashMap<>();
+            for (int i = 0; i < cf.free.size(); i++) {
+                fitted.put(cf.free.get(i).name(), fromU(cf.free.get(i), cf.u[i]));
+            }
+            List<ModelParameter> before = new ArrayList<>(cf.free);
+            Map<String, String> heldBefore = new LinkedHashMap<>(cf.heldReason);
+            chooseFree(cf, fitted);
+            if (cf.free.equals(before)) {
+                cf.heldReason.clear();
+                cf.heldReason.putAll(heldBefore);
+                break;
+            }
+            cf.freeSetChanged = true;
+            fitFree(cf, fitted, rng, 0);
+        }
+        Prediction[] preds = predictAll(values(combo, cf.free, cf.u));
+        cf.m2ll = minus2LogL(preds);
+        cf.k = cf.free.size() + numericOutcomes.size();
+        int n = obs.size();
+        cf.aicc = n - cf.k - 1 > 0 ? cf.m2ll + 2.0 * cf.k + 2.0 * cf.k * (cf.k + 1) / (n - cf.k - 1) : Double.NaN;
+        return cf;
+    }
+
+    /**
+     * Fits the candidate's current free parameters by reweighted minimisation from a start point and
+     * {@code extraStarts} random starts around it; sets {@code cf.u} and {@code cf.sigma}.
+     *
+     * @param at start values by name (missing ones at default)
+     */
+    void fitFree(CandidateFit cf, Map<String, Double> at, SplittableRandom rng, int extraStarts) {
+        Map<String, Double> combo = cf.combo;
         double[] start = new double[cf.free.size()];
         for (int i = 0; i < start.length; i++) {
-            start[i] = toU(cf.free.get(i), cf.free.get(i).defaultValue());
+            ModelParameter p = cf.free.get(i);
+            start[i] = toU(p, at.getOrDefault(p.name(), p.defaultValue()));
         }
         double[] u = start;
-        Map<String, Double> sigma = startSigma();
+        Map<String, Double> sigma;
         if (!cf.free.isEmpty()) {
             List<double[]> starts = new ArrayList<>();
             starts.add(start);
-            int extraStarts = intervals ? 2 : 0;
             for (int s = 0; s < extraStarts; s++) {
                 double[] r = new double[start.length];
                 for (int i = 0; i < r.length; i++) {
@@ -67,6 +105,7 @@ abstract class FitOptimizer extends FreeParameters {
             }
             double bestVal = Double.POSITIVE_INFINITY;
             double[] bestU = start;
+            sigma = startSigma();
             for (double[] s0 : starts) {
                 double[] uu = s0;
                 Map<String, Double> sg = startSigma();
@@ -97,12 +136,6 @@ abstract class FitOptimizer extends FreeParameters {
         }
         cf.u = u;
         cf.sigma = sigma;
-        Prediction[] preds = predictAll(values(combo, cf.free, u));
-        cf.m2ll = minus2LogL(preds);
-        cf.k = cf.free.size() + numericOutcomes.size();
-        int n = obs.size();
-        cf.aicc = n - cf.k - 1 > 0 ? cf.m2ll + 2.0 * cf.k + 2.0 * cf.k * (cf.k + 1) / (n - cf.k - 1) : Double.NaN;
-        return cf;
     }
 
     double[] minimise(double[] start, Map<String, Double> combo, List<ModelParameter> free,
@@ -156,7 +189,7 @@ abstract class FitOptimizer extends FreeParameters {
 
     double[] levenbergMarquardt(double[] start, double[] lo, double[] hi, Map<String, Double> combo,
                                 List<ModelParameter> free, Map<String, Double> sigma) {
-        int nRes = (int) obs.stream().filter(o -> !o.isClass()).count();
+        int nRes = numericCount();
         MultivariateJacobianFunction f = point -> {
             double[] u = clamp(point.toArray(), lo, hi);
             double[] r0 = numericResiduals(predictAll(values(combo, free, u)), sigma);

@@ -20,6 +20,9 @@ import dev.terrace.spi.Role;
 import org.apache.commons.math3.distribution.TDistribution;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import dev.terrace.core.fit.FitResults.RunStatus;
+import dev.terrace.core.fit.FitResults.RunUse;
+import dev.terrace.core.fit.FitResults.Excluded;
 import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
@@ -36,7 +39,7 @@ final class FitProblem extends FitUncertainty {
             return emptyFit(model.id(), defaults, defaultsHeld(model, "the campaign measures nothing this model predicts"),
                     "the campaign has no outcome with a role this model predicts ("
                             + String.join(", ", model.predictedOutcomes().stream().map(Role::key).sorted().toList())
-                            + ")");
+                            + ")", allRuns);
         }
         collect(defaults);
         int nRuns = used.size();
@@ -46,10 +49,40 @@ final class FitProblem extends FitUncertainty {
                     + " ok runs that measured " + String.join(" or ", outs.stream().map(OutcomeSpec::name).toList())
                     + "); every parameter is held at its default";
             List<Estimate> held = defaultsHeld(model, "too few runs (" + nRuns + ")");
-            return new ModelFit(model.id(), nRuns, excluded, held, Map.of(), List.of(), List.of(), List.of(),
-                    List.of(), new double[0][], defaults, List.of(msg), msg);
+            return new ModelFit(model.id(), nRuns, excluded, withShared(held), Map.of(), List.of(), List.of(),
+                    List.of(), List.of(), new double[0][], values(Map.of(), List.of(), new double[0]), List.of(msg),
+                    msg, statuses(null));
         }
-        // every combination of discrete choices
+        List<CandidateFit> cands = fitAllCandidates();
+        CandidateFit best = select(cands);
+        // runs outside the model at the fitted values leave, and the model is refitted without them
+        for (int round = 0; round < VALIDITY_RECHECKS; round++) {
+            Prediction[] preds = predictAll(values(best.combo, best.free, best.u));
+            List<Integer> drop = new ArrayList<>();
+            List<String> reasons = new ArrayList<>();
+            for (int i = 0; i < preds.length; i++) {
+                if (!preds[i].validity().valid()) {
+                    drop.add(i);
+                    reasons.add("outside the model at the fitted parameters: " + preds[i].validity().reason());
+                }
+            }
+            if (drop.isEmpty() || used.size() - drop.size() < MIN_RUNS) {
+                break;
+            }
+            dropRuns(drop, reasons);
+            cands = fitAllCandidates();
+            best = select(cands);
+        }
+        boolean aiccUsable = Double.isFinite(best.aicc);
+        List<Candidate> candOut = new ArrayList<>();
+        for (CandidateFit cf : cands) {
+            candOut.add(new Candidate(cf.combo, cf.aicc, cf.m2ll, cf.k, cf == best));
+        }
+        return report(best, candOut, aiccUsable);
+    }
+
+    /** Fits every combination of discrete choices. */
+    List<CandidateFit> fitAllCandidates() {
         List<Map<String, Double>> combos = combos();
         List<CandidateFit> cands = new ArrayList<>();
         // candidates are independent: fit them on up to CANDIDATE_THREADS threads, each with its own
@@ -85,13 +118,17 @@ final class FitProblem extends FitUncertainty {
                 pool.shutdownNow();
             }
         }
+        return cands;
+    }
+
+    /** The candidate with the lowest AICc, or the default choices when AICc cannot be computed. */
+    CandidateFit select(List<CandidateFit> cands) {
         CandidateFit best = null;
         for (CandidateFit cf : cands) {
             if (Double.isFinite(cf.aicc) && (best == null || cf.aicc < best.aicc)) {
                 best = cf;
             }
         }
-        boolean aiccUsable = best != null;
         if (best == null) {
             // too few runs for AICc: keep the default discrete choices
             for (CandidateFit cf : cands) {
@@ -103,11 +140,7 @@ final class FitProblem extends FitUncertainty {
                 best = cands.get(0);
             }
         }
-        List<Candidate> candOut = new ArrayList<>();
-        for (CandidateFit cf : cands) {
-            candOut.add(new Candidate(cf.combo, cf.aicc, cf.m2ll, cf.k, cf == best));
-        }
-        return report(best, candOut, aiccUsable);
+        return best;
     }
 
     boolean isDefaultCombo(Map<String, Double> combo) {
@@ -180,6 +213,9 @@ final class FitProblem extends FitUncertainty {
                     reason += "; the interval reaches the parameter's physical bound";
                 }
                 est.add(new Estimate(p.name(), p.unit(), v, lo, hi, false, reason, p.source()));
+            } else if (shared.containsKey(p.name())) {
+                est.add(new Estimate(p.name(), p.unit(), shared.get(p.name()), Double.NaN, Double.NaN, true,
+                        sharedReason.get(p.name()), p.source()));
             } else if (p.isDiscrete()) {
                 String why = discrete.size() > 0 && aiccUsable ? "chosen by AICc among "
                         + p.choices().stream().map(ModelFitter::fmt).toList()
@@ -212,6 +248,8 @@ final class FitProblem extends FitUncertainty {
         List<OutcomeFit> outFits = new ArrayList<>();
         for (OutcomeSpec o : outs) {
             int n = 0;
+            int nCensored = 0;
+            int nMeasured = 0;
             double ss = 0;
             double ll = 0;
             int correct = 0;
@@ -237,31 +275,92 @@ final class FitProblem extends FitUncertainty {
                     if (ob.cls().equals(top)) {
                         correct++;
                     }
-                    residuals.add(new Residual(runId, o.name(), Double.NaN, Double.NaN, -Math.log(pr), ob.cls()));
+                    residuals.add(new Residual(runId, o.name(), Double.NaN, Double.NaN, -Math.log(pr), ob.cls(),
+                            null));
                 } else {
                     double f = predictedScaled(p, o);
                     double meas = o.scale() == Scale.LOG ? Math.pow(10, ob.y()) : ob.y();
                     double pred = Double.isFinite(f) ? (o.scale() == Scale.LOG ? Math.pow(10, f) : f) : Double.NaN;
                     double r = Double.isFinite(f) ? ob.y() - f : Double.NaN;
-                    if (Double.isFinite(r)) {
-                        ss += r * r;
+                    if (ob.isCensored()) {
+                        nCensored++;
+                    } else {
+                        nMeasured++;
+                        if (Double.isFinite(r)) {
+                            ss += r * r;
+                        }
                     }
-                    residuals.add(new Residual(runId, o.name(), meas, pred, r, null));
+                    residuals.add(new Residual(runId, o.name(), meas, pred, r, null,
+                            ob.isCensored() ? ob.side().symbol() : null));
                 }
             }
             if (n == 0) {
                 continue;
             }
             if (o.isClass()) {
-                outFits.add(new OutcomeFit(o.name(), "class", n, Double.NaN, ll / n, (double) correct / n));
+                outFits.add(new OutcomeFit(o.name(), "class", n, Double.NaN, ll / n, (double) correct / n, 0,
+                        Double.NaN));
             } else {
                 outFits.add(new OutcomeFit(o.name(), o.scale() == Scale.LOG ? "log10" : "linear", n,
-                        Math.sqrt(ss / n), Double.NaN, Double.NaN));
+                        nMeasured == 0 ? Double.NaN : Math.sqrt(ss / nMeasured), Double.NaN, Double.NaN, nCensored,
+                        best.sigma.getOrDefault(o.name(), Double.NaN)));
             }
         }
         List<String> verdict = verdict(est, best);
         return new ModelFit(model.id(), used.size(), excluded, est, best.combo, candOut, outFits, residuals,
-                corrNames, corr, values, verdict, "");
+                corrNames, corr, values, verdict, "", statuses(preds));
+    }
+
+    /**
+     * Every run of the log with what this fit did with it, in log order.
+     *
+     * @param preds predictions at the fitted values for the used runs, or null when nothing was fitted
+     */
+    List<RunStatus> statuses(Prediction[] preds) {
+        Map<String, String> why = new LinkedHashMap<>();
+        for (Excluded x : excluded) {
+            why.putIfAbsent(x.runId(), x.reason());
+        }
+        Map<String, Integer> usedIndex = new LinkedHashMap<>();
+        for (int i = 0; i < used.size(); i++) {
+            usedIndex.put(used.get(i).runId(), i);
+        }
+        Map<Integer, List<String>> censoredCells = new LinkedHashMap<>();
+        for (Obs o : obs) {
+            if (o.isCensored()) {
+                double bound = o.outcome().scale() == Scale.LOG ? Math.pow(10, o.y()) : o.y();
+                censoredCells.computeIfAbsent(o.run(), k -> new ArrayList<>())
+                        .add(o.outcome().name() + " " + o.side().symbol() + fmt(bound));
+            }
+        }
+        List<RunStatus> out = new ArrayList<>();
+        for (Run r : allRuns) {
+            Integer i = usedIndex.get(r.runId());
+            if (i == null) {
+                out.add(new RunStatus(r.runId(), RunUse.EXCLUDED, why.getOrDefault(r.runId(), "not used")));
+                continue;
+            }
+            String remark = preds != null && !preds[i].validity().valid()
+                    ? "used although outside the model at the fitted parameters: " + preds[i].validity().reason() : "";
+            List<String> cells = censoredCells.get(i);
+            if (cells != null) {
+                String c2 = "censored " + String.join(", ", cells) + ", used through the Tobit likelihood";
+                out.add(new RunStatus(r.runId(), RunUse.CENSORED, remark.isEmpty() ? c2 : c2 + "; " + remark));
+            } else {
+                out.add(new RunStatus(r.runId(), RunUse.USED, remark));
+            }
+        }
+        return out;
+    }
+
+    /** Estimates held at defaults, with shared parameters at the value another model fitted. */
+    List<Estimate> withShared(List<Estimate> held) {
+        List<Estimate> out = new ArrayList<>();
+        for (Estimate e : held) {
+            out.add(shared.containsKey(e.name()) ? new Estimate(e.name(), e.unit(), shared.get(e.name()), Double.NaN,
+                    Double.NaN, true, sharedReason.get(e.name()), e.source()) : e);
+        }
+        return out;
     }
 
     List<String> verdict(List<Estimate> est, CandidateFit best) {
@@ -277,7 +376,13 @@ final class FitProblem extends FitUncertainty {
             best.combo.forEach((k, v) -> parts.add(words(k) + " " + fmt(v)));
             out.add(String.join(", ", parts) + (candOut(best) ? " (best AICc)" : " (default; too few runs to choose)"));
         }
-        long held = est.stream().filter(e -> e.held() && !isDiscrete(e.name())).count();
+        long held = est.stream().filter(e -> e.held() && !isDiscrete(e.name()) && !shared.containsKey(e.name()))
+                .count();
+        long sharedHeld = est.stream().filter(e -> shared.containsKey(e.name())).count();
+        if (sharedHeld > 0) {
+            out.add(sharedHeld + " parameter" + (sharedHeld == 1 ? "" : "s")
+                    + " taken from an earlier model of the chain (same meaning)");
+        }
         if (held > 0) {
             out.add(held + " parameter" + (held == 1 ? "" : "s") + " held at default"
                     + (held == 1 ? "" : "s") + " (see reasons)");

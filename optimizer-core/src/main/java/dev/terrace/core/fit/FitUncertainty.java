@@ -12,6 +12,7 @@ import dev.terrace.spi.Prediction;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
 import org.apache.commons.math3.linear.EigenDecomposition;
 import org.apache.commons.math3.linear.RealMatrix;
+import dev.terrace.core.runlog.Censored;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -101,7 +102,8 @@ abstract class FitUncertainty extends FitOptimizer {
 
     /** Covariance in u space, or null when the information matrix is not positive definite. */
     double[][] covariance(CandidateFit cf) {
-        double[][] info = hasClass ? hessian(cf) : gaussNewton(cf);
+        // Gauss-Newton needs plain residuals; class and censored terms take the observed information
+        double[][] info = hasClass || hasCensored ? hessian(cf) : gaussNewton(cf);
         RealMatrix m = new Array2DRowRealMatrix(info);
         EigenDecomposition ed = new EigenDecomposition(m);
         double[] ev = ed.getRealEigenvalues();
@@ -114,7 +116,7 @@ abstract class FitUncertainty extends FitOptimizer {
         double[][] cov = ed.getSolver().getInverse().getData();
         // correct for the residual degrees of freedom of the estimated noise (numeric only)
         if (!hasClass) {
-            int n = (int) obs.stream().filter(o -> !o.isClass()).count();
+            int n = numericCount();
             int dof = n - cf.free.size();
             if (dof > 0) {
                 double f = (double) n / dof;
@@ -135,7 +137,7 @@ abstract class FitUncertainty extends FitOptimizer {
         List<Integer> residIdx = new ArrayList<>();
         for (int i = 0; i < obs.size(); i++) {
             Obs o = obs.get(i);
-            if (!o.isClass()) {
+            if (!o.isClass() && !o.isCensored()) {
                 double f = predictedScaled(fittedPreds[o.run()], o.outcome());
                 resid.add(Double.isFinite(f) ? (o.y() - f) / cf.sigma.get(o.outcome().name()) : 0);
                 residIdx.add(i);
@@ -154,12 +156,21 @@ abstract class FitUncertainty extends FitOptimizer {
                 List<Obs> synth = new ArrayList<>();
                 for (Obs o : original) {
                     if (o.isClass()) {
-                        synth.add(new Obs(o.run(), o.outcome(), Double.NaN,
+                        synth.add(Obs.exact(o.run(), o.outcome(), Double.NaN,
                                 sampleClass(fittedPreds[o.run()], o.outcome(), r)));
+                        continue;
+                    }
+                    double f = predictedScaled(fittedPreds[o.run()], o.outcome());
+                    double s = cf.sigma.get(o.outcome().name());
+                    // resample the measured residuals; with none measured, draw from the fitted normal
+                    double e = (nNum > 0 ? resid.get(r.nextInt(nNum)) * inflate : r.nextGaussian()) * s;
+                    double y = (Double.isFinite(f) ? f : o.y()) + e;
+                    if (!o.isCensored()) {
+                        synth.add(Obs.exact(o.run(), o.outcome(), y, null));
+                    } else if (o.side() == Censored.Side.BELOW ? y < o.y() : y > o.y()) {
+                        synth.add(o); // the replicate falls beyond the same bound: censored again
                     } else {
-                        double f = predictedScaled(fittedPreds[o.run()], o.outcome());
-                        double e = resid.get(r.nextInt(nNum)) * inflate * cf.sigma.get(o.outcome().name());
-                        synth.add(new Obs(o.run(), o.outcome(), (Double.isFinite(f) ? f : o.y()) + e, null));
+                        synth.add(Obs.exact(o.run(), o.outcome(), y, null));
                     }
                 }
                 obs.clear();

@@ -69,13 +69,29 @@ abstract class FreeParameters extends FitLikelihood {
         return out;
     }
 
-    void chooseFree(CandidateFit cf) {
+    /**
+     * Chooses the free parameters of a candidate from the sensitivities at a given point: the defaults
+     * before the first fit, the fitted values when the choice is checked again. Parameters held at a
+     * value another model of the chain fitted (same meaning) are never freed here.
+     *
+     * @param cf the candidate; its {@code free} list and held reasons are replaced
+     * @param at parameter values to evaluate the sensitivities at, by name (missing ones at default)
+     */
+    void chooseFree(CandidateFit cf, Map<String, Double> at) {
         int nObs = obs.size();
         List<ModelParameter> free = new ArrayList<>();
-        List<ModelParameter> all = new ArrayList<>(continuous);
+        List<ModelParameter> all = new ArrayList<>();
+        cf.heldReason.clear();
+        for (ModelParameter p : continuous) {
+            if (shared.containsKey(p.name())) {
+                cf.heldReason.put(p.name(), sharedReason.get(p.name()));
+            } else {
+                all.add(p);
+            }
+        }
         double[] u0all = new double[all.size()];
         for (int i = 0; i < all.size(); i++) {
-            u0all[i] = toU(all.get(i), all.get(i).defaultValue());
+            u0all[i] = toU(all.get(i), at.getOrDefault(all.get(i).name(), all.get(i).defaultValue()));
         }
         double[][] jAll = sensitivity(cf.combo, all, u0all);
         double maxNorm = 0;
@@ -97,7 +113,8 @@ abstract class FreeParameters extends FitLikelihood {
             }
             double effective = 0;
             for (Obs o : obs) {
-                effective += o.isClass() ? CLASS_OBSERVATION_WEIGHT : 1;
+                // a class label or a censored value says less than a measured number
+                effective += o.isClass() || o.isCensored() ? CLASS_OBSERVATION_WEIGHT : 1;
             }
             if (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
                     || effective < OBSERVATIONS_PER_PARAMETER * (free.size() + 1)) {

@@ -47,6 +47,8 @@ import org.apache.commons.math3.util.Pair;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
+import dev.terrace.core.fit.FitResults.RunStatus;
+import dev.terrace.core.fit.FitResults.RunUse;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -124,6 +126,17 @@ public final class ModelFitter {
     public static final int REWEIGHT_ITERATIONS = 4;
     /** Residual assigned to an observation when a trial parameter set makes the prediction invalid. */
     static final double INVALID_PENALTY = 30;
+    /**
+     * How often the choice of free parameters is checked again at the fitted values (and the model
+     * refitted when it changed): two rechecks settle every case seen in the bundled models' tests
+     * (test design, not a published value).
+     */
+    public static final int FREE_SET_RECHECKS = 2;
+    /**
+     * How often runs whose predictions are outside the model at the fitted values are left out and
+     * the model refitted (same reasoning as {@link #FREE_SET_RECHECKS}).
+     */
+    public static final int VALIDITY_RECHECKS = 2;
 
     private ModelFitter() {
     }
@@ -152,31 +165,98 @@ public final class ModelFitter {
      */
     public static FitReport fit(LoadedCampaign lc, PluginRegistry registry, long seed, boolean intervals) {
         Campaign c = lc.campaign();
+        List<Run> runs = lc.runLog().runs();
         List<ModelChain.Step> fitted = new ArrayList<>();
         List<ModelFit> fits = new ArrayList<>();
+        Map<String, SharedMeaning> meanings = new LinkedHashMap<>();
         SplittableRandom rng = new SplittableRandom(seed);
         for (String id : c.models()) {
             Optional<GrowthModel> m = registry.model(id);
             if (m.isEmpty()) {
                 fits.add(emptyFit(id, ParameterValues.defaults(List.of()), List.of(),
-                        "growth model '" + id + "' is not available"));
+                        "growth model '" + id + "' is not available", runs));
                 continue;
             }
             ModelFit f;
             try {
-                FitProblem pr = new FitProblem(c, lc.runLog().runs(), m.get(), ModelChain.of(fitted, c.surface()), rng.split());
+                FitProblem pr = new FitProblem(c, runs, m.get(), ModelChain.of(fitted, c.surface()), rng.split());
                 pr.intervals = intervals;
                 pr.maxEvaluations = intervals ? 3000 : FAST_MAX_EVALUATIONS;
+                for (ModelParameter p : m.get().parameters()) {
+                    SharedMeaning owner = p.hasSharedMeaning() ? meanings.get(p.meaning()) : null;
+                    if (owner != null && owner.fitted() && owner.unit().equals(p.unit()) && !p.isDiscrete()) {
+                        pr.shared.put(p.name(), Math.max(p.min(), Math.min(p.max(), owner.value())));
+                        pr.sharedReason.put(p.name(), sharedReason(owner.modelId(), owner.parameter(), p.meaning()));
+                    }
+                }
                 f = pr.solve();
             } catch (RuntimeException e) {
                 f = emptyFit(id, ParameterValues.defaults(m.get().parameters()), defaultsHeld(m.get(), "fit failed"),
                         "the fit of " + id + " failed: " + e.getClass().getSimpleName()
-                                + (e.getMessage() == null ? "" : ": " + e.getMessage()));
+                                + (e.getMessage() == null ? "" : ": " + e.getMessage()), runs);
             }
             fits.add(f);
             fitted.add(new ModelChain.Step(m.get(), f.values()));
+            share(m.get(), f, fits, fitted, meanings);
         }
-        return new FitReport(c.id(), lc.runLog().runs().size(), lc.runLog().failedRuns().size(), fits, seed);
+        return new FitReport(c.id(), runs.size(), lc.runLog().failedRuns().size(), fits, seed);
+    }
+
+    /**
+     * Who determines a shared-meaning parameter: the first model, in chain order, that fitted it
+     * (or, until one does, the first that declares it), and the earlier models that held it.
+     */
+    private record SharedMeaning(String modelId, String parameter, String unit, double value, boolean fitted,
+                                 List<int[]> holders, List<String> holderParams) {
+    }
+
+    private static String sharedReason(String modelId, String parameter, String meaning) {
+        return "one parameter with " + modelId + "'s " + parameter + " (same meaning, " + meaning
+                + "); determined there";
+    }
+
+    /**
+     * Records the model's shared-meaning parameters. When this model fitted one that earlier models
+     * held at its default, the earlier models take the fitted value too, so the chain predicts with one.
+     */
+    private static void share(GrowthModel m, ModelFit f, List<ModelFit> fits, List<ModelChain.Step> fitted,
+                              Map<String, SharedMeaning> meanings) {
+        int index = fits.size() - 1;
+        int stepIndex = fitted.size() - 1;
+        for (ModelParameter p : m.parameters()) {
+            if (!p.hasSharedMeaning() || p.isDiscrete()) {
+                continue;
+            }
+            Estimate e = f.estimate(p.name());
+            SharedMeaning owner = meanings.get(p.meaning());
+            if (owner == null) {
+                List<int[]> holders = new ArrayList<>();
+                List<String> names = new ArrayList<>();
+                if (e.held()) {
+                    holders.add(new int[] {index, stepIndex});
+                    names.add(p.name());
+                }
+                meanings.put(p.meaning(), new SharedMeaning(m.id(), p.name(), p.unit(), e.value(), !e.held(),
+                        holders, names));
+            } else if (!owner.fitted() && !e.held() && owner.unit().equals(p.unit())) {
+                for (int h = 0; h < owner.holders().size(); h++) {
+                    int[] at = owner.holders().get(h);
+                    String name = owner.holderParams().get(h);
+                    ModelFit earlier = fits.get(at[0]);
+                    Estimate old = earlier.estimate(name);
+                    ModelFit updated = earlier.withParameter(name, e.value(), new Estimate(name, old.unit(), e.value(),
+                            Double.NaN, Double.NaN, true, sharedReason(m.id(), p.name(), p.meaning()), old.source()));
+                    fits.set(at[0], updated);
+                    ModelChain.Step s = fitted.get(at[1]);
+                    fitted.set(at[1], new ModelChain.Step(s.model(), updated.values()));
+                }
+                meanings.put(p.meaning(), new SharedMeaning(m.id(), p.name(), p.unit(), e.value(), true,
+                        List.of(), List.of()));
+            } else if (!owner.fitted() && e.held()) {
+                owner.holders().add(new int[] {index, stepIndex});
+                owner.holderParams().add(p.name());
+            }
+        }
     }
 
     /**
@@ -197,9 +277,17 @@ public final class ModelFitter {
         return ModelChain.of(steps, c.surface());
     }
 
-    static ModelFit emptyFit(String id, ParameterValues values, List<Estimate> estimates, String message) {
-        return new ModelFit(id, 0, List.of(), estimates, Map.of(), List.of(), List.of(), List.of(), List.of(),
-                new double[0][], values, List.of(message), message);
+    static ModelFit emptyFit(String id, ParameterValues values, List<Estimate> estimates, String message,
+                             List<Run> runs) {
+        List<RunStatus> statuses = new ArrayList<>();
+        List<Excluded> excluded = new ArrayList<>();
+        for (Run r : runs) {
+            String why = r.ok() ? message : "the run failed (status failed): no sample to measure";
+            statuses.add(new RunStatus(r.runId(), RunUse.EXCLUDED, why));
+            excluded.add(new Excluded(r.runId(), why));
+        }
+        return new ModelFit(id, 0, excluded, estimates, Map.of(), List.of(), List.of(), List.of(), List.of(),
+                new double[0][], values, List.of(message), message, statuses);
     }
 
     static List<Estimate> defaultsHeld(GrowthModel m, String reason) {

@@ -56,6 +56,12 @@ public final class Main implements Runnable {
      */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
         quietLibraries();
+        String algebraProblem = dev.terrace.core.linalg.Algebra.configurationProblem();
+        if (algebraProblem != null) {
+            err.println("terrace: " + algebraProblem);
+            err.flush();
+            return EXIT_INPUT;
+        }
         CommandLine cl = commandLine();
         cl.setOut(out);
         cl.setErr(err);
@@ -120,7 +126,8 @@ public final class Main implements Runnable {
                 }
             }
             return new String[] {"terrace " + p.getProperty("version", "unknown"),
-                    "GPL-3.0-or-later; Java " + System.getProperty("java.version")};
+                    "GPL-3.0-or-later; Java " + System.getProperty("java.version"),
+                    "linear algebra: " + dev.terrace.core.linalg.Algebra.description()};
         }
     }
 }

@@ -93,6 +93,23 @@ public final class Algebra {
     }
 
     /**
+     * Checks the configured request without choosing a backend, so that a front end can refuse a
+     * misspelt value before any work starts.
+     *
+     * @return null when {@value #PROPERTY} and {@value #ENVIRONMENT} hold accepted values (or are
+     *         unset), else a message naming the value and the accepted ones
+     */
+    public static String configurationProblem() {
+        String prop = System.getProperty(PROPERTY);
+        try {
+            parse(prop != null ? prop : System.getenv(ENVIRONMENT));
+            return null;
+        } catch (IllegalArgumentException e) {
+            return e.getMessage();
+        }
+    }
+
+    /**
      * Parses a backend request.
      *
      * @param value the property or environment value; null or blank means {@code auto}
@@ -137,7 +154,8 @@ public final class Algebra {
             return new Choice(NativeAlgebra.INSTANCE, request.equals("native") ? "chosen by " + source + "=native"
                     : "native library loaded");
         }
-        return new Choice(JavaAlgebra.INSTANCE, "native library not usable here: " + failure);
+        return new Choice(JavaAlgebra.INSTANCE, (request.equals("native") ? source + "=native asked for it, but the "
+                : "the ") + "native library is not usable here: " + failure);
     }
 
     private static volatile String probe;

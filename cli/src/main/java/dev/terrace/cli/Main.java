@@ -83,7 +83,34 @@ public final class Main implements Runnable {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         cl.setExecutionExceptionHandler(Main::handle);
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            CommandLine.Model.UsageMessageSpec um = sub.getCommandSpec().usageMessage();
+            um.description(firstSentenceJoined(um.description()));
+        }
         return cl;
+    }
+
+    /**
+     * Joins the source lines of a description's first sentence into one line (picocli lists a
+     * command by its first description line, so a sentence split over two lines would show cut);
+     * later lines are kept as written.
+     */
+    static String[] firstSentenceJoined(String[] lines) {
+        int end = 0;
+        while (end < lines.length - 1 && !lines[end].strip().endsWith(".") && !lines[end].strip().endsWith(":")) {
+            end++;
+        }
+        if (end == 0) {
+            return lines;
+        }
+        java.util.List<String> out = new java.util.ArrayList<>();
+        StringBuilder first = new StringBuilder();
+        for (int k = 0; k <= end; k++) {
+            first.append(k == 0 ? "" : " ").append(lines[k].strip());
+        }
+        out.add(first.toString());
+        out.addAll(java.util.Arrays.asList(lines).subList(end + 1, lines.length));
+        return out.toArray(new String[0]);
     }
 
     private static int handle(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {

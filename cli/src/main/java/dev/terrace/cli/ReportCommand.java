@@ -59,8 +59,8 @@ import java.util.function.Supplier;
  * Arrhenius plot, window maps, the proposed next runs, the safety cautions and what the numbers mean.
  */
 @Command(name = "report", mixinStandardHelpOptions = true,
-        description = {"Write one self-contained HTML report of a campaign (inline figures, no scripts, prints on A4):",
-                "runs and targets, fitted parameters, validation, window maps, proposals and safety cautions.",
+        description = {"Write one self-contained HTML report of a campaign (inline figures, no scripts, prints on A4)",
+                "with runs and targets, fitted parameters, validation, window maps, proposals and safety cautions.",
                 "Never overwrites a file without --force and never touches the run log."})
 final class ReportCommand implements Callable<Integer> {
 

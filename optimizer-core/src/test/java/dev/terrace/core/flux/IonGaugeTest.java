@@ -13,9 +13,13 @@ class IonGaugeTest {
 
     @Test
     void summersRuleGivesTheTabulatedSensitivities() {
-        // Check values derived from Summers' rule, eta/eta_N2 = 0.4 Z/14 + 0.6 (R. L. Summers,
-        // NASA TN D-5285, 1969; coefficients from memory), as listed in the project's reference
-        // file (physics check values, section 5).
+        // Summers' rule, eta/eta_N2 = 0.4 Z/14 + 0.6 (R. L. Summers, "Empirical observations on the
+        // sensitivity of hot cathode ionization type vacuum gages", NASA TN D-5285 (1969); the report
+        // is confirmed, the coefficients 0.4 and 0.6 are from memory). Z = electrons per molecule
+        // (atomic numbers Al 13, Ga 31, In 49, P 15, As 33, Sb 51). Arithmetic, rounded to 3 decimals:
+        // Al 0.4*13/14+0.6 = 0.9714; Ga 0.4*31/14+0.6 = 1.4857; In 0.4*49/14+0.6 = 2.0000;
+        // As 0.4*33/14+0.6 = 1.5429; As2 (Z 66) 2.4857; As4 (Z 132) 4.3714; Sb 2.0571;
+        // Sb4 (Z 204) 6.4286; P2 (Z 30) 1.4571; P4 (Z 60) 2.3143.
         assertEquals(0.971, IonGauge.relativeSensitivity(Species.Al), ROUNDING, "Al");
         assertEquals(1.486, IonGauge.relativeSensitivity(Species.Ga), ROUNDING, "Ga");
         assertEquals(2.000, IonGauge.relativeSensitivity(Species.In), ROUNDING, "In");
@@ -36,10 +40,11 @@ class IonGaugeTest {
 
     @Test
     void summersRuleStaysWithinThirtyPercentOfMeasuredBayardAlpertSensitivities() {
-        // CRC Handbook of Chemistry and Physics, table of relative sensitivities of Bayard-Alpert
-        // gauges (averages of 12 experimenters), as quoted in the project's reference file:
+        // CRC Handbook of Chemistry and Physics, section 15 (vacuum technology), table of relative
+        // sensitivities of Bayard-Alpert ionization gauges to various gases, averages over 12
+        // experimenters (edition not recorded; values read in a copy of the table):
         // Ar 1.4 (Z 18), Hg 3.5 (Z 80), O2 0.96 (Z 16), CO 1.0 (Z 14), CO2 1.4 (Z 22).
-        // The formula gives Ar 1.11 and Hg 2.89 (reference file, section 5).
+        // Summers' formula gives Ar 0.4*18/14+0.6 = 1.114 and Hg 0.4*80/14+0.6 = 2.886.
         assertEquals(1.11, IonGauge.relativeSensitivity(18), 0.005, "Ar by the formula");
         assertEquals(2.89, IonGauge.relativeSensitivity(80), 0.005, "Hg by the formula");
         int[] z = {18, 80, 16, 14, 22};

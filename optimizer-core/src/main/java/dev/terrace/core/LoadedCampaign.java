@@ -17,7 +17,8 @@ import java.util.Objects;
  *
  * @param campaign the campaign; never null
  * @param runLog   its runs; never null
- * @param warnings warnings from both files, in file order; never null
+ * @param warnings warnings from both files, in file order, then those of {@link CampaignConsistency};
+ *                 never null
  * @since 0.1
  */
 public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> warnings) {
@@ -44,6 +45,7 @@ public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> 
         RunLog log = RunLogReader.read(r.campaign());
         List<Diagnostic> warnings = new ArrayList<>(r.warnings());
         warnings.addAll(log.warnings());
+        warnings.addAll(CampaignConsistency.warnings(r.campaign(), log, registry));
         return new LoadedCampaign(r.campaign(), log, warnings);
     }
 }

@@ -817,6 +817,9 @@ public final class Plots {
         return chart;
     }
 
+    /** Fixed prefix of the ids of an SVG's clip paths and gradients (see {@link #toSvg}). */
+    private static final String SVG_DEFS_PREFIX = "terrace";
+
     // ------------------------------------------------------------------ output
 
     /**
@@ -831,6 +834,9 @@ public final class Plots {
     public static String toSvg(JFreeChart chart, int w, int h) {
         checkSize(w, h);
         SVGGraphics2D g = new SVGGraphics2D(w, h);
+        // JFreeSVG prefixes clip-path and gradient ids with System.nanoTime() by default, so the same
+        // chart would give different bytes on every run; a fixed prefix keeps the output reproducible
+        g.setDefsKeyPrefix(SVG_DEFS_PREFIX);
         synchronized (Plots.class) {
             // JFreeChart's old workaround for rotated text draws it through TextLayout, which SVG
             // output turns into glyph outlines; switched off here, rotated labels stay searchable text

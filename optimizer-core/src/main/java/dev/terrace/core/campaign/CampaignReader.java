@@ -228,8 +228,16 @@ public final class CampaignReader {
         }
         List<Target> targets = top.containsKey("targets") ? targets(top.get("targets").getValueNode(), outcomes)
                 : List.of();
+        Set<String> declared = new LinkedHashSet<>();
+        if (pt != null && pt.getValueNode() instanceof MappingNode) {
+            for (NodeTuple t : ((MappingNode) pt.getValueNode()).getValue()) {
+                if (t.getKeyNode() instanceof ScalarNode) {
+                    declared.add(((ScalarNode) t.getKeyNode()).getValue());
+                }
+            }
+        }
         List<LinearLimit> limits = top.containsKey("limits")
-                ? limits(top.get("limits").getValueNode(), parameters) : List.of();
+                ? limits(top.get("limits").getValueNode(), parameters, declared) : List.of();
         List<String> models = top.containsKey("models") ? models(top.get("models").getValueNode()) : List.of();
         String runs = Optional.ofNullable(scalarText(top, "runs", root, false)).orElse(DEFAULT_RUNS);
         if (runs.isBlank()) {
@@ -513,7 +521,12 @@ public final class CampaignReader {
         return out;
     }
 
-    private List<LinearLimit> limits(Node n, List<ParameterSpec> parameters) {
+    /**
+     * Reads the limits. {@code declared} holds every parameter name written in the campaign, also
+     * those whose declaration had an error: a limit naming one of those is left out quietly, as the
+     * declaration's own error already says what to fix (one cause, one message).
+     */
+    private List<LinearLimit> limits(Node n, List<ParameterSpec> parameters, Set<String> declared) {
         List<LinearLimit> out = new ArrayList<>();
         if (!(n instanceof SequenceNode)) {
             error(n, "expected a list of limits such as '- anneal_temp >= substrate_temp'");
@@ -539,7 +552,9 @@ public final class CampaignReader {
             boolean ok = true;
             for (String name : limit.coefficients().keySet()) {
                 ParameterSpec p = byName.get(name);
-                if (p == null) {
+                if (p == null && declared.contains(name)) {
+                    ok = false; // the parameter's declaration is wrong and reported there
+                } else if (p == null) {
                     int at = text.indexOf(name);
                     error(item.getStartMark().getLine() + 1, item.getStartMark().getColumn() + 1 + Math.max(at, 0),
                             "limit names unknown parameter '" + name + "'" + hint(name, byName.keySet()));

@@ -155,16 +155,30 @@ public final class CampaignReader {
         // the same bound as the file size, so text handed to parse() directly is bounded too
         opts.setCodePointLimit((int) InputFiles.MAX_CAMPAIGN_BYTES);
         Node root;
+        String text;
         try {
-            root = new Yaml(opts).compose(in);
+            text = readAll(in);
+        } catch (IOException e) {
+            error(0, 0, "campaign file could not be read: " + e.getMessage());
+            return null;
+        }
+        try {
+            root = new Yaml(opts).compose(new StringReader(text));
         } catch (MarkedYAMLException e) {
             Mark m = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
             String what = e.getProblem() != null ? e.getProblem() : e.getMessage();
-            error(m == null ? 0 : m.getLine() + 1, m == null ? 0 : m.getColumn() + 1,
-                    "not valid YAML: " + what);
+            int[] at = m != null ? new int[] {m.getLine() + 1, m.getColumn() + 1} : YamlErrorPosition.of(text, e, opts);
+            error(at[0], at[1], "not valid YAML: " + what);
             return null;
         } catch (YAMLException e) {
-            error(0, 0, "not valid YAML: " + e.getMessage());
+            // a disallowed character, or a loader limit (nesting depth, aliases): the library gives
+            // no line, so find it
+            int[] at = YamlErrorPosition.of(text, e, opts);
+            String what = e instanceof org.yaml.snakeyaml.reader.ReaderException re
+                    ? String.format("character U+%04X is not allowed in YAML text (control characters and"
+                    + " non-characters must be removed)", re.getCodePoint())
+                    : e.getMessage();
+            error(at[0], at[1], "not valid YAML: " + what);
             return null;
         }
         if (root == null) {
@@ -846,6 +860,15 @@ public final class CampaignReader {
 
     private void error(SourcePosition p, String message) {
         error(p.line(), p.column(), message);
+    }
+
+    private static String readAll(Reader in) throws IOException {
+        StringBuilder sb = new StringBuilder();
+        char[] buf = new char[8192];
+        for (int n; (n = in.read(buf)) >= 0; ) {
+            sb.append(buf, 0, n);
+        }
+        return sb.toString();
     }
 
     private void error(int line, int column, String message) {

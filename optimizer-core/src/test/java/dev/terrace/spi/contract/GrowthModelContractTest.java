@@ -217,7 +217,8 @@ public abstract class GrowthModelContractTest {
         Conditions typical = typicalConditions();
         Prediction base = m.predict(typical, typicalSurface(), defaults);
         for (Role r : Role.values()) {
-            if (required.contains(r) || optional.contains(r) || typical.numbers().containsKey(r)
+            if (required.contains(r) || optional.contains(r) || r.quantity() == Quantity.CLASS
+                    || typical.numbers().containsKey(r)
                     || typical.categories().containsKey(r)) {
                 continue;
             }

@@ -2,6 +2,7 @@ package dev.terrace.core;
 
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
+import dev.terrace.core.io.SafeFiles;
 import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
@@ -28,6 +29,16 @@ public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> 
         Objects.requireNonNull(campaign);
         Objects.requireNonNull(runLog);
         warnings = List.copyOf(warnings);
+    }
+
+    /**
+     * The files this campaign was read from, which no output may replace.
+     *
+     * @return the campaign file and the run log; never null
+     */
+    public List<SafeFiles.Input> inputs() {
+        return List.of(new SafeFiles.Input(campaign.file(), "campaign file"),
+                new SafeFiles.Input(runLog.file(), "run log"));
     }
 
     /**

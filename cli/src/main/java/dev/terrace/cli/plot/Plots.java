@@ -933,6 +933,28 @@ public final class Plots {
         }
     }
 
+    /**
+     * Writes a chart as PNG or SVG through a checked target, chosen by the file name's ending
+     * (.png or .svg, any case).
+     *
+     * @param chart  the chart
+     * @param target where and how to write
+     * @param w      width in pixels
+     * @param h      height in pixels
+     * @throws IllegalArgumentException for another ending
+     * @throws IOException              on failures (no partial file is left)
+     */
+    public static void save(JFreeChart chart, SafeFiles.Target target, int w, int h) throws IOException {
+        String name = target.path().getFileName().toString().toLowerCase(Locale.ROOT);
+        if (name.endsWith(".png")) {
+            target.write(pngBytes(chart, w, h));
+        } else if (name.endsWith(".svg")) {
+            target.write(toSvg(chart, w, h));
+        } else {
+            throw new IllegalArgumentException("chart files end in .png or .svg, not " + target.path().getFileName());
+        }
+    }
+
     private static void checkSize(int w, int h) {
         if (w < 50 || h < 50 || w > 10000 || h > 10000) {
             throw new IllegalArgumentException("chart size must be 50 to 10000 pixels a side, found " + w + "x" + h);

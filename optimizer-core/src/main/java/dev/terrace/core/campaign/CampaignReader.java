@@ -3,6 +3,7 @@ package dev.terrace.core.campaign;
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.DidYouMean;
 import dev.terrace.core.InputException;
+import dev.terrace.core.io.InputFiles;
 import dev.terrace.core.material.Compound;
 import dev.terrace.core.material.Materials;
 import dev.terrace.core.material.Metal;
@@ -34,7 +35,6 @@ import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -94,10 +94,11 @@ public final class CampaignReader {
     public static Result read(Path file, Set<String> knownModels) throws InputException, IOException {
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            byte[] bytes = InputFiles.read(file, InputFiles.CAMPAIGN);
+            text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "campaign file not found"));
-        } catch (java.nio.charset.MalformedInputException e) {
+        } catch (java.nio.charset.CharacterCodingException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "campaign file is not UTF-8 text"));
         }
         return parse(file, new StringReader(text), knownModels);
@@ -151,6 +152,8 @@ public final class CampaignReader {
         LoaderOptions opts = new LoaderOptions();
         opts.setAllowDuplicateKeys(true); // duplicates are reported by us, with both positions
         opts.setMaxAliasesForCollections(10);
+        // the same bound as the file size, so text handed to parse() directly is bounded too
+        opts.setCodePointLimit((int) InputFiles.MAX_CAMPAIGN_BYTES);
         Node root;
         String text;
         try {
@@ -577,24 +580,47 @@ public final class CampaignReader {
         if (limits.isEmpty()) {
             return;
         }
-        List<String> names = new ArrayList<>(byName.keySet());
-        names.removeIf(k -> byName.get(k).isCategorical());
         boolean anyAlone = false;
         for (LinearLimit l : limits) {
-            if (!feasible(List.of(l), names, byName)) {
+            if (!feasibleAlone(l, byName)) {
                 error(l.position(), "no setting inside the parameter boxes satisfies the limit '" + l.text()
                         + "'; widen the boxes or correct the limit");
                 anyAlone = true;
             }
         }
-        if (!anyAlone && limits.size() > 1 && !feasible(limits, names, byName)) {
+        if (!anyAlone && limits.size() > 1 && !feasible(limits, byName)) {
             error(limits.get(0).position(), "the limits cannot all hold at once inside the parameter boxes: "
                     + limits.stream().map(LinearLimit::text).collect(Collectors.joining("; ")));
         }
     }
 
-    private static boolean feasible(List<LinearLimit> limits, List<String> names, Map<String, ParameterSpec> byName) {
+    /**
+     * Whether some point of the box satisfies one limit {@code a·x + c >= 0}: its largest value over
+     * the box is {@code c + Σ max(a_i min_i, a_i max_i)} (time and memory linear in the terms).
+     */
+    static boolean feasibleAlone(LinearLimit l, Map<String, ParameterSpec> byName) {
+        double best = l.constant();
+        double scale = Math.abs(l.constant());
+        for (Map.Entry<String, Double> t : l.coefficients().entrySet()) {
+            ParameterSpec p = byName.get(t.getKey());
+            double a = t.getValue();
+            double v = Math.max(a * p.min(), a * p.max());
+            best += v;
+            scale = Math.max(scale, Math.abs(v));
+        }
+        return best >= -1e-9 * Math.max(scale, 1);
+    }
+
+    /**
+     * Whether some point of the box satisfies every limit at once (simplex). Only the settings the
+     * limits name enter the programme, so its size follows the limits, not the parameter count.
+     */
+    static boolean feasible(List<LinearLimit> limits, Map<String, ParameterSpec> byName) {
+        List<String> names = limits.stream().flatMap(l -> l.coefficients().keySet().stream()).distinct().toList();
         int d = names.size();
+        if (d == 0) {
+            return limits.stream().allMatch(l -> l.constant() >= 0);
+        }
         List<LinearConstraint> cs = new ArrayList<>();
         for (int i = 0; i < d; i++) {
             double[] e = new double[d];

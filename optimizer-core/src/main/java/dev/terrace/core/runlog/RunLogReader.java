@@ -3,6 +3,7 @@ package dev.terrace.core.runlog;
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.DidYouMean;
 import dev.terrace.core.InputException;
+import dev.terrace.core.io.InputFiles;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
 import dev.terrace.core.campaign.Scale;
@@ -21,7 +22,6 @@ import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AccessDeniedException;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -123,13 +123,9 @@ public final class RunLogReader {
     public static RunLog read(Campaign campaign, Path file) throws IOException, InputException {
         Objects.requireNonNull(campaign, "campaign");
         Objects.requireNonNull(file, "file");
-        if (Files.isDirectory(file)) {
-            throw new InputException(Diagnostic.error(file, 0, 0,
-                    "the run log is a folder, expected a CSV file"));
-        }
         byte[] bytes;
         try {
-            bytes = Files.readAllBytes(file);
+            bytes = InputFiles.read(file, InputFiles.RUN_LOG);
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "run log not found; the campaign "
                     + campaign.file() + " expects its runs in this CSV file (create it with a header row"
@@ -181,13 +177,9 @@ public final class RunLogReader {
         Objects.requireNonNull(campaign, "campaign");
         String text;
         try {
-            byte[] bytes = Files.readAllBytes(file);
-            text = java.nio.charset.StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes))
-                    .toString();
+            text = decodeUtf8(file, InputFiles.read(file, InputFiles.CANDIDATES));
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "candidate file not found"));
-        } catch (java.nio.charset.CharacterCodingException e) {
-            throw new InputException(Diagnostic.error(file, 0, 0, "candidate file is not UTF-8 text"));
         }
         return parse(campaign, file, text, true);
     }

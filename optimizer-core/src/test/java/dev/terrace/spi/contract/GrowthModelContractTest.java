@@ -217,9 +217,10 @@ public abstract class GrowthModelContractTest {
         Conditions typical = typicalConditions();
         Prediction base = m.predict(typical, typicalSurface(), defaults);
         for (Role r : Role.values()) {
-            if (required.contains(r) || optional.contains(r) || typical.numbers().containsKey(r)
-                    || typical.categories().containsKey(r) || r.quantity() == Quantity.CLASS) {
-                continue; // a class outcome is never a recipe input, so Conditions cannot hold one
+            if (required.contains(r) || optional.contains(r) || r.quantity() == Quantity.CLASS
+                    || typical.numbers().containsKey(r)
+                    || typical.categories().containsKey(r)) {
+                continue;
             }
             Conditions.Builder b = Conditions.builder();
             typical.numbers().forEach(b::set);

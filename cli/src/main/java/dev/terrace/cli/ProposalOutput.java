@@ -7,6 +7,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
 import dev.terrace.core.campaign.ParameterSpec;
+import dev.terrace.core.propose.Proposals.BeyondRuns;
 import dev.terrace.core.propose.Proposals.NumericPrediction;
 import dev.terrace.core.propose.Proposals.Proposal;
 import dev.terrace.core.propose.Proposals.ProposalSet;
@@ -18,6 +19,9 @@ import java.util.Map;
 
 /** Renders proposals and rankings as a table, CSV or JSON. NaN is never printed (JSON null, empty cell, "-"). */
 final class ProposalOutput {
+    /** Marks a recipe setting outside the range of the ok runs in the table; explained by a legend line. */
+    static final String BEYOND_MARK = "*";
+
     private ProposalOutput() {
     }
 
@@ -90,6 +94,13 @@ final class ProposalOutput {
             } else {
                 o.putNull("nearest_run");
             }
+            ObjectNode br = o.putObject("beyond_runs");
+            for (Map.Entry<String, BeyondRuns> e : p.beyondRuns().entrySet()) {
+                ObjectNode b = br.putObject(e.getKey());
+                put(b, "value", e.getValue().value());
+                put(b, "runs_min", e.getValue().runsMin());
+                put(b, "runs_max", e.getValue().runsMax());
+            }
             o.put("inside_box", p.insideBox());
             o.put("keeps_limits", p.keepsLimits());
             o.put("reason", p.reason());
@@ -129,7 +140,7 @@ final class ProposalOutput {
                 head.add(o.name() + "_hi90");
             }
         }
-        head.addAll(List.of("p_success", "nearest_run", "distance", "reason", "flags"));
+        head.addAll(List.of("p_success", "nearest_run", "distance", "reason", "flags", "beyond_runs"));
         StringBuilder sb = new StringBuilder();
         sb.append("# Terrace ").append(set.mode()).append(" for campaign ").append(set.campaignId())
                 .append(", seed ").append(set.seed()).append("; predictions, not measurements\n");
@@ -167,6 +178,7 @@ final class ProposalOutput {
             row.add(num(p.nearestDistance()));
             row.add(cell(p.reason()));
             row.add(cell(String.join("; ", p.flags())));
+            row.add(cell(String.join(";", p.beyondRuns().keySet())));
             sb.append(String.join(",", row)).append('\n');
         }
         return sb.toString();
@@ -180,6 +192,9 @@ final class ProposalOutput {
         for (String n : set.notes()) {
             sb.append("  note: ").append(n).append('\n');
         }
+        if (set.proposals().stream().anyMatch(p -> !p.beyondRuns().isEmpty())) {
+            sb.append("  ").append(BEYOND_MARK).append(" = outside the range of the ok runs; the prediction there extrapolates\n");
+        }
         for (Proposal p : set.proposals()) {
             sb.append('\n');
             sb.append(String.format(Locale.ROOT, "#%d  %s  yield %.2f  (P run succeeds %.2f)%n", p.rank(), p.id(),
@@ -190,7 +205,8 @@ final class ProposalOutput {
                 Object v = p.recipe().get(ps.name());
                 r.append(first ? "" : ", ").append(ps.name()).append(' ')
                         .append(v instanceof Double ? Format.setting((Double) v) : v)
-                        .append(ps.isCategorical() ? "" : " " + ps.unit().symbol());
+                        .append(ps.isCategorical() ? "" : " " + ps.unit().symbol())
+                        .append(p.beyondRuns().containsKey(ps.name()) ? BEYOND_MARK : "");
                 first = false;
             }
             sb.append(r).append('\n');

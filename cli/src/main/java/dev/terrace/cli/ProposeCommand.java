@@ -49,9 +49,18 @@ final class ProposeCommand implements Callable<Integer> {
     long seed;
 
     @Option(names = "--explore", defaultValue = "" + ProposeSettings.DEFAULT_EXPLORE,
-            description = {"Exploration weight: 0 proposes the highest predicted yield; larger values favour",
-                    "recipes whose outcome is uncertain but could meet spec (default: ${DEFAULT-VALUE})."})
+            description = "Exploration weight: 0 proposes the highest predicted yield, also with a maximize or "
+                    + "minimize target (each reason line then says what yield a recipe trades for how much objective); "
+                    + "larger values favour recipes whose outcome is uncertain but could meet spec or improve the "
+                    + "objective (default: ${DEFAULT-VALUE}).")
     double explore;
+
+    @Option(names = "--within-runs", paramLabel = "MARGIN",
+            description = "Keep each numeric setting within [runs min - MARGIN x span, runs max + MARGIN x span] of "
+                    + "the values the ok runs used (span = runs max - runs min, on the log axis for log settings), "
+                    + "inside the campaign box. 0 stays inside the runs' ranges; MARGIN is 0 to 10. Without it the "
+                    + "whole campaign box is searched.")
+    Double withinRuns;
 
     @Option(names = "--no-physics", description = "Switch the growth models off (a pure Gaussian process).")
     boolean noPhysics;
@@ -66,12 +75,17 @@ final class ProposeCommand implements Callable<Integer> {
             throw new CommandLine.ParameterException(spec.commandLine(), "--explore must be a number from 0 to "
                     + (int) MAX_EXPLORE + " (standard deviations of optimism), found " + explore);
         }
+        if (withinRuns != null && !(withinRuns >= 0 && withinRuns <= ProposeSettings.MAX_WITHIN_RUNS)) {
+            throw new CommandLine.ParameterException(spec.commandLine(),
+                    "--within-runs must be a number from 0 to 10 (a fraction of each setting's logged span), found "
+                            + withinRuns);
+        }
         PrintWriter err = spec.commandLine().getErr();
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         output.guard(lc, java.util.List.of());
         ProposeSettings s = ProposeSettings.defaults().withBatch(batch).withSeed(seed).withExplore(explore)
-                .withPhysics(!noPhysics);
+                .withPhysics(!noPhysics).withWithinRuns(withinRuns == null ? Double.POSITIVE_INFINITY : withinRuns);
         ProposalSet set;
         try (Progress bar = Progress.startPhases("propose", 2, global)) {
             bar.message("fitting models and surrogates");

@@ -43,6 +43,25 @@ public final class Proposals {
     }
 
     /**
+     * A numeric setting of a recipe outside the range of the ok runs.
+     *
+     * @param value   the recipe's value, campaign unit
+     * @param runsMin smallest value an ok run recorded
+     * @param runsMax largest value an ok run recorded
+     */
+    public record BeyondRuns(double value, double runsMin, double runsMax) {
+        /** Checks that the values are finite, the range ordered and the value outside it. */
+        public BeyondRuns {
+            if (!Double.isFinite(value) || !Double.isFinite(runsMin) || !Double.isFinite(runsMax) || runsMin > runsMax) {
+                throw new IllegalArgumentException("beyond-runs values must be finite with min <= max");
+            }
+            if (value >= runsMin && value <= runsMax) {
+                throw new IllegalArgumentException("value " + value + " is inside the runs' range");
+            }
+        }
+    }
+
+    /**
      * One proposed or ranked recipe.
      *
      * @param id            stable identifier ("P-" and 8 hex digits of the recipe) to write in the run
@@ -60,11 +79,14 @@ public final class Proposals {
      * @param flags         warnings about the recipe (outside box or limits, model validity, safety)
      * @param insideBox     true when every setting is inside its box
      * @param keepsLimits   true when every limit holds
+     * @param beyondRuns    numeric settings outside the range of the ok runs, by name in campaign
+     *                      order; empty when none or when the log has no ok run
      */
     public record Proposal(String id, int rank, double yield, double acquisition, Map<String, Object> recipe,
                            Map<String, NumericPrediction> numeric, Map<String, Map<String, Double>> classes,
                            double success, String nearestRun, double nearestDistance, String reason,
-                           List<String> flags, boolean insideBox, boolean keepsLimits) {
+                           List<String> flags, boolean insideBox, boolean keepsLimits,
+                           Map<String, BeyondRuns> beyondRuns) {
         /** Copies the contents and checks the probabilities. */
         public Proposal {
             Objects.requireNonNull(id);
@@ -72,6 +94,7 @@ public final class Proposals {
             numeric = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(numeric));
             classes = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(classes));
             flags = List.copyOf(flags);
+            beyondRuns = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(beyondRuns));
             if (!(yield >= 0 && yield <= 1) || !(success >= 0 && success <= 1)) {
                 throw new IllegalArgumentException("probabilities out of range in proposal " + id);
             }
@@ -80,7 +103,7 @@ public final class Proposals {
         /** @return a copy with a new rank */
         public Proposal withRank(int r) {
             return new Proposal(id, r, yield, acquisition, recipe, numeric, classes, success, nearestRun,
-                    nearestDistance, reason, flags, insideBox, keepsLimits);
+                    nearestDistance, reason, flags, insideBox, keepsLimits, beyondRuns);
         }
     }
 

@@ -8,17 +8,14 @@ import dev.terrace.core.campaign.OutcomeSpec;
 import dev.terrace.core.campaign.ParameterSpec;
 import dev.terrace.core.campaign.Scale;
 import dev.terrace.core.campaign.Target;
-import dev.terrace.core.design.LatinHypercube;
 import dev.terrace.core.model.RecipeConverter;
 import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.propose.CampaignSurrogate.Evaluation;
+import dev.terrace.core.propose.Proposals.BeyondRuns;
 import dev.terrace.core.propose.Proposals.NumericPrediction;
 import dev.terrace.core.propose.Proposals.Proposal;
 import dev.terrace.core.propose.Proposals.ProposalSet;
 import dev.terrace.core.runlog.Run;
-import dev.terrace.core.search.BatchObjective;
-import dev.terrace.core.search.GeneticSearch;
-import dev.terrace.core.search.SearchResult;
 import dev.terrace.core.space.DesignPoint;
 import dev.terrace.core.space.DesignSpace;
 import dev.terrace.spi.Conditions;
@@ -55,9 +52,18 @@ import java.util.Map;
  *
  * <p><b>Batches</b> use the Kriging believer (Ginsbourger, Le Riche and Carraro 2010): after each
  * pick the GPs are conditioned on their own predicted mean there, so uncertainty shrinks and the
- * next pick goes elsewhere; picks closer than {@code minDistance} to an earlier pick are penalised.
- * In a batch of two or more, the first pick maximises the predicted yield itself (the best bet) and
- * the others the optimistic yield, so every batch holds one recipe to rely on and some to learn from.
+ * next pick goes elsewhere; picks closer than {@code minDistance} to an earlier pick over the
+ * numeric settings are penalised, and no two rounded picks are closer than
+ * {@link #MIN_BATCH_SEPARATION} (when the box and limits leave no room, the batch is cut short and a
+ * note says so). In a batch of two or more, the first pick maximises the predicted yield itself
+ * (the best bet) and the others the acquisition, so every batch holds one recipe to rely on and
+ * some to learn from. With {@code explore = 0} every pick maximises the predicted yield, with or
+ * without an objective; with an objective each reason line then says what yield the recipe trades
+ * for how much objective against the highest-yield recipe found ({@link ObjectiveTrade}).
+ *
+ * <p><b>What the runs cover.</b> Each proposal lists the numeric settings outside the range of the
+ * ok runs ({@link RunRanges}); {@link ProposeSettings#withinRuns()} keeps the search within a
+ * margin of those ranges ({@link SearchBox}).
  *
  * <p><b>Too few runs.</b> With fewer ok runs with outcomes than {@link #runsNeeded} (settings + 1,
  * or half that when fitted growth models shape the surrogate), a maximin Latin
@@ -68,6 +74,13 @@ import java.util.Map;
  */
 public final class Proposer {
 
+    /**
+     * Smallest distance between two proposals of a batch over the scaled numeric settings (each
+     * setting on [0, 1] across the campaign box, log settings on log10; Euclidean; a different
+     * categorical choice alone does not count), after rounding. A project choice in line with the
+     * common practice of keeping batch points apart; not a published value.
+     */
+    public static final double MIN_BATCH_SEPARATION = 0.1;
     /** Score subtracted from a candidate closer than the minimum distance to an earlier pick. */
     public static final double DIVERSITY_PENALTY = 1000;
     /** Multiple of 1.645 for 90 % central intervals of a normal distribution. */
@@ -103,12 +116,16 @@ public final class Proposer {
     public static ProposalSet propose(CampaignSurrogate sur, ProposeSettings s) {
         DesignSpace space = sur.space();
         int needed = runsNeeded(sur, s);
+        RunRanges ranges = RunRanges.of(space, sur.loaded().runLog().runs());
+        SearchBox box = SearchBox.of(space, ranges, s.withinRuns());
         List<String> notes = new ArrayList<>(sur.notes());
-        List<DesignPoint> chosen;
+        notes.addAll(ranges.notes(space));
+        notes.addAll(box.notes());
+        BatchSearch.Picks picks;
         String mode;
         if (sur.runsUsed() < needed) {
             mode = "space-filling start";
-            chosen = spaceFilling(sur, s);
+            picks = BatchSearch.spaceFilling(sur, s, box);
             notes.add("only " + sur.runsUsed() + " run" + (sur.runsUsed() == 1 ? "" : "s")
                     + " with measured outcomes, fewer than the " + needed + " needed to fit the"
                     + " surrogates: proposing a maximin Latin-hypercube design"
@@ -116,14 +133,16 @@ public final class Proposer {
                     : ", taken in order of the growth models' predicted yield"));
         } else {
             mode = "search";
-            chosen = search(sur, s);
+            picks = BatchSearch.search(sur, s, box, incumbent(sur));
         }
+        notes.addAll(picks.notes());
         List<Proposal> out = new ArrayList<>();
         Double inc = incumbent(sur); // computed once: it evaluates the surrogate at every qualifying run
-        for (DesignPoint p : chosen) {
-            Map<String, Double> rounded = RecipeRounding.round(space, p);
+        Reference ref = picks.reference() == null ? null : reference(sur, picks.reference(), s, inc);
+        for (DesignPoint p : picks.points()) {
+            Map<String, Double> rounded = RecipeRounding.round(space, p); // already rounded: this undoes float noise
             DesignPoint rp = space.encode(rounded, space.categories(p));
-            out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p), inc));
+            out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p), inc, ranges, ref));
         }
         out.sort(Comparator.comparingDouble(Proposal::yield).reversed().thenComparing(Proposal::id));
         List<Proposal> ranked = new ArrayList<>();
@@ -164,6 +183,8 @@ public final class Proposer {
         List<Proposal> out = new ArrayList<>();
         Double inc = incumbent(sur); // computed once: it evaluates the surrogate at every qualifying run
         List<String> notes = new ArrayList<>(sur.notes());
+        RunRanges ranges = RunRanges.of(space, sur.loaded().runLog().runs());
+        notes.addAll(ranges.notes(space));
         for (Run r : candidates) {
             DesignPoint p = space.encode(r.numbers(), r.categories());
             if (p == null) {
@@ -174,10 +195,10 @@ public final class Proposer {
             for (ParameterSpec ps : space.continuous()) {
                 nums.put(ps.name(), r.numbers().get(ps.name()));
             }
-            Proposal pr = describe(sur, p, s, "ranking", nums, space.categories(p), inc);
+            Proposal pr = describe(sur, p, s, "ranking", nums, space.categories(p), inc, ranges, null);
             out.add(new Proposal(r.runId(), 0, pr.yield(), pr.acquisition(), pr.recipe(), pr.numeric(), pr.classes(),
                     pr.success(), pr.nearestRun(), pr.nearestDistance(), pr.reason(), pr.flags(), pr.insideBox(),
-                    pr.keepsLimits()));
+                    pr.keepsLimits(), pr.beyondRuns()));
         }
         out.sort(Comparator.comparingDouble(Proposal::yield).reversed().thenComparing(Proposal::id));
         List<Proposal> ranked = new ArrayList<>();
@@ -313,76 +334,6 @@ public final class Proposer {
         return best;
     }
 
-    // ------------------------------------------------------------------ search
-
-    static List<DesignPoint> search(CampaignSurrogate sur, ProposeSettings s) {
-        DesignSpace space = sur.space();
-        Double inc = incumbent(sur);
-        // starts: the runs the model rates best, plus the space-filling sample
-        List<DesignPoint> runPts = new ArrayList<>();
-        for (DesignPoint p : sur.runPoints()) {
-            if (inCube(p) && space.feasible(p)) {
-                runPts.add(p);
-            }
-        }
-        List<DesignPoint> starts = new ArrayList<>();
-        if (!runPts.isEmpty()) {
-            Scores sc = score(sur, sur.evaluate(runPts), s.explore(), inc);
-            Integer[] idx = new Integer[runPts.size()];
-            for (int i = 0; i < idx.length; i++) {
-                idx[i] = i;
-            }
-            java.util.Arrays.sort(idx, (a, b) -> Double.compare(sc.logAcq()[b], sc.logAcq()[a]));
-            for (int i = 0; i < Math.min(5, idx.length); i++) {
-                starts.add(runPts.get(idx[i]));
-            }
-        }
-        List<DesignPoint> filling = LatinHypercube.maximinPoints(Math.max(20, s.search().populationSize() / 2),
-                space.dimensions(), space.levelCounts(), s.seed(), 500);
-        List<DesignPoint> chosen = new ArrayList<>();
-        CampaignSurrogate cur = sur;
-        GeneticSearch ga = GeneticSearch.of(s.search());
-        for (int k = 0; k < s.batch(); k++) {
-            final CampaignSurrogate model = cur;
-            final List<DesignPoint> picked = List.copyOf(chosen);
-            // the first pick of a batch is the best bet (no exploration); the others explore
-            final double beta = k == 0 && s.batch() > 1 ? 0 : s.explore();
-            BatchObjective obj = pts -> {
-                Scores sc = score(model, model.evaluate(pts), beta, inc);
-                double[] v = sc.logAcq().clone();
-                for (int i = 0; i < v.length; i++) {
-                    for (DesignPoint q : picked) {
-                        if (DesignSpace.distance(pts.get(i), q) < s.minDistance()) {
-                            v[i] -= DIVERSITY_PENALTY;
-                            break;
-                        }
-                    }
-                    if (!Double.isFinite(v[i])) {
-                        v[i] = Acquisitions.LOG_ZERO;
-                    }
-                }
-                return v;
-            };
-            List<DesignPoint> st = new ArrayList<>(starts);
-            st.addAll(chosen);
-            SearchResult res = ga.maximise(space, obj, st, filling, s.seed() * 31 + k);
-            DesignPoint pick = res.best();
-            if (far(pick, chosen, s.minDistance()) == false) {
-                for (DesignPoint q : res.topDistinct()) {
-                    if (far(q, chosen, s.minDistance())) {
-                        pick = q;
-                        break;
-                    }
-                }
-            }
-            chosen.add(pick);
-            if (k + 1 < s.batch()) {
-                cur = cur.believe(pick);
-            }
-        }
-        return chosen;
-    }
-
     static boolean inCube(DesignPoint p) {
         for (int i = 0; i < p.dimensions(); i++) {
             if (p.x(i) < 0 || p.x(i) > 1) {
@@ -392,66 +343,11 @@ public final class Proposer {
         return true;
     }
 
-    static boolean far(DesignPoint p, List<DesignPoint> others, double d) {
-        for (DesignPoint q : others) {
-            if (DesignSpace.distance(p, q) < d) {
-                return false;
-            }
-        }
-        return true;
-    }
-
-    static List<DesignPoint> spaceFilling(CampaignSurrogate sur, ProposeSettings s) {
-        DesignSpace space = sur.space();
-        int m = Math.max(10 * s.batch(), 40);
-        List<DesignPoint> cands = new ArrayList<>();
-        for (DesignPoint p : LatinHypercube.maximinPoints(m, space.dimensions(), space.levelCounts(), s.seed(), 2000)) {
-            if (space.feasible(p)) {
-                cands.add(p);
-            }
-        }
-        if (cands.isEmpty()) {
-            // the limits cut the box hard: let the search find feasible points
-            return search(sur, s.withExplore(s.explore()));
-        }
-        boolean physics = s.usePhysics() && !sur.campaign().models().isEmpty();
-        double[] logYield = physics ? score(sur, sur.evaluate(cands), s.explore(), null).logAcq() : new double[cands.size()];
-        List<DesignPoint> existing = sur.runPoints();
-        List<DesignPoint> chosen = new ArrayList<>();
-        double sep = Math.max(s.minDistance(), 0.25);
-        while (chosen.size() < s.batch() && chosen.size() < cands.size()) {
-            int best = -1;
-            double bestScore = Double.NEGATIVE_INFINITY;
-            for (int i = 0; i < cands.size(); i++) {
-                DesignPoint p = cands.get(i);
-                if (chosen.contains(p)) {
-                    continue;
-                }
-                double dmin = Double.POSITIVE_INFINITY;
-                for (DesignPoint q : chosen) {
-                    dmin = Math.min(dmin, DesignSpace.distance(p, q));
-                }
-                for (DesignPoint q : existing) {
-                    dmin = Math.min(dmin, DesignSpace.distance(p, q));
-                }
-                double score = physics ? (dmin >= sep ? logYield[i] : logYield[i] - DIVERSITY_PENALTY + dmin) : dmin;
-                if (score > bestScore) {
-                    bestScore = score;
-                    best = i;
-                }
-            }
-            if (best < 0) {
-                break;
-            }
-            chosen.add(cands.get(best));
-        }
-        return chosen;
-    }
-
     // ------------------------------------------------------------------ description
 
     static Proposal describe(CampaignSurrogate sur, DesignPoint p, ProposeSettings s, String mode,
-                             Map<String, Double> numbers, Map<String, String> categories, Double incumbent) {
+                             Map<String, Double> numbers, Map<String, String> categories, Double incumbent,
+                             RunRanges ranges, Reference ref) {
         Campaign c = sur.campaign();
         DesignSpace space = sur.space();
         Evaluation e = sur.evaluate(List.of(p));
@@ -520,11 +416,73 @@ public final class Proposer {
         if (!limits) {
             c.limits().stream().filter(l -> !l.holds(numbers)).forEach(l -> flags.add("breaks the limit " + l.text()));
         }
+        Map<String, BeyondRuns> beyond = ranges.beyond(space, numbers);
+        for (Map.Entry<String, BeyondRuns> b : beyond.entrySet()) {
+            String unit = c.parameter(b.getKey()).map(ps -> " " + ps.unit().symbol()).orElse("");
+            flags.add(String.format(Locale.ROOT, "%s %s%s is beyond the ok runs (they span %s to %s%s): the prediction"
+                            + " extrapolates", b.getKey(), num(b.getValue().value()), unit, num(b.getValue().runsMin()),
+                    num(b.getValue().runsMax()), unit));
+        }
+        flags.addAll(ranges.untriedChoices(space, categories));
         flags.addAll(e.validity().get(0));
         flags.addAll(safetyFlags(c, numbers, categories));
+        String id = id(c.id(), recipe);
         String reason = reason(mode, yield, acq, sc.factors().get(0), nearest, nd, sur, s);
-        return new Proposal(id(c.id(), recipe), 0, yield, bounded(acq), recipe, numeric, classes,
-                clamp01(e.success()[0]), nearest, Double.isNaN(nd) ? 0 : nd, reason, flags, inside, limits);
+        if (ref != null && mode.equals("search")) {
+            reason = ObjectiveTrade.reason(c, ref, id, yield, objectiveValue(c, e)) + tail(sc.factors().get(0), nearest, nd);
+        }
+        return new Proposal(id, 0, yield, bounded(acq), recipe, numeric, classes,
+                clamp01(e.success()[0]), nearest, Double.isNaN(nd) ? 0 : nd, reason, flags, inside, limits, beyond);
+    }
+
+    /** Short number for messages: up to 4 significant digits. */
+    static String num(double v) {
+        if (!Double.isFinite(v)) {
+            return "-";
+        }
+        java.math.BigDecimal b = new java.math.BigDecimal(v).round(new java.math.MathContext(4)).stripTrailingZeros();
+        double a = Math.abs(v);
+        if (a != 0 && (a < 1e-3 || a >= 1e6)) {
+            int exp = b.precision() - b.scale() - 1;
+            return b.movePointLeft(exp).stripTrailingZeros().toPlainString() + "e" + exp;
+        }
+        return b.toPlainString();
+    }
+
+    /**
+     * The highest-yield recipe the search found, to which the objective's trade is reported.
+     *
+     * @param id        its proposal id
+     * @param yield     its predicted yield
+     * @param objective its predicted objective (mean, or median for a log outcome)
+     */
+    record Reference(String id, double yield, double objective) {
+    }
+
+    static Reference reference(CampaignSurrogate sur, DesignPoint p, ProposeSettings s, Double inc) {
+        Campaign c = sur.campaign();
+        DesignSpace space = sur.space();
+        Map<String, Double> rounded = RecipeRounding.round(space, p);
+        DesignPoint rp = space.encode(rounded, space.categories(p));
+        DesignPoint q = rp != null ? rp : p;
+        Evaluation e = sur.evaluate(List.of(q));
+        double y = clamp01(Math.exp(score(sur, e, 0, inc).logYield()[0]));
+        Map<String, Object> recipe = new LinkedHashMap<>();
+        for (ParameterSpec ps : c.parameters()) {
+            recipe.put(ps.name(), ps.isCategorical() ? space.categories(q).get(ps.name()) : rounded.get(ps.name()));
+        }
+        return new Reference(id(c.id(), recipe), y, objectiveValue(c, e));
+    }
+
+    /** The predicted objective at the first point of an evaluation, in the outcome's unit (median for log outcomes). */
+    static double objectiveValue(Campaign c, Evaluation e) {
+        Target objective = c.targets().stream().filter(Target::isObjective).findFirst().orElse(null);
+        if (objective == null) {
+            return Double.NaN;
+        }
+        OutcomeSpec o = c.outcome(objective.outcome()).orElseThrow();
+        double mu = e.mean().get(o.name())[0];
+        return o.scale() == Scale.LOG ? Math.pow(10, mu) : mu;
     }
 
     static List<String> safetyFlags(Campaign c, Map<String, Double> numbers, Map<String, String> categories) {
@@ -542,8 +500,8 @@ public final class Proposer {
         return out;
     }
 
-    static String reason(String mode, double yield, double acq, Map<String, Double> factors, String nearest,
-                         double nd, CampaignSurrogate sur, ProposeSettings s) {
+    /** "; weakest: ... (nearest run ...)": the end of every reason line of a search. */
+    static String tail(Map<String, Double> factors, String nearest, double nd) {
         String weakest = null;
         double wv = 2;
         for (Map.Entry<String, Double> f : factors.entrySet()) {
@@ -552,28 +510,30 @@ public final class Proposer {
                 weakest = f.getKey();
             }
         }
-        String weak = weakest == null ? "" : String.format(Locale.ROOT, "weakest: %s %.2f", weakest, wv);
+        String weak = weakest == null ? "" : String.format(Locale.ROOT, "; weakest: %s %.2f", weakest, wv);
         String near = nearest == null ? "no run yet" : String.format(Locale.ROOT, "nearest run %s at %.2f", nearest, nd);
+        return weak + " (" + near + ")";
+    }
+
+    static String reason(String mode, double yield, double acq, Map<String, Double> factors, String nearest,
+                         double nd, CampaignSurrogate sur, ProposeSettings s) {
+        String tail = tail(factors, nearest, nd);
         if (mode.equals("space-filling start")) {
             boolean physics = s.usePhysics() && !sur.campaign().models().isEmpty();
+            String near = nearest == null ? "no run yet" : String.format(Locale.ROOT, "nearest run %s at %.2f", nearest, nd);
             return "space-filling start" + (physics ? ", placed where the growth models expect results in spec" : "")
                     + " (" + near + ")";
         }
         if (mode.equals("ranking")) {
-            return String.format(Locale.ROOT, "predicted yield %.2f; %s (%s)", yield, weak, near);
-        }
-        if (sur.campaign().targets().stream().anyMatch(Target::isObjective)) {
-            return String.format(Locale.ROOT, "expected improvement of the objective within the targets; yield %.2f; %s (%s)",
-                    yield, weak, near);
+            return String.format(Locale.ROOT, "predicted yield %.2f", yield) + tail;
         }
         if (yield >= 0.5) {
-            return String.format(Locale.ROOT, "likely in spec (yield %.2f); %s (%s)", yield, weak, near);
+            return String.format(Locale.ROOT, "likely in spec (yield %.2f)", yield) + tail;
         }
         if (acq > 3 * yield) {
-            return String.format(Locale.ROOT, "explores where predictions are uncertain and could meet spec; %s (%s)",
-                    weak, near);
+            return "explores where predictions are uncertain and could meet spec" + tail;
         }
-        return String.format(Locale.ROOT, "best predicted yield found (%.2f); %s (%s)", yield, weak, near);
+        return String.format(Locale.ROOT, "best predicted yield found (%.2f)", yield) + tail;
     }
 
     static String id(String campaign, Map<String, Object> recipe) {

@@ -1,5 +1,6 @@
 package dev.terrace.cli;
 
+import dev.terrace.cli.bench.CalibrationBench;
 import dev.terrace.cli.bench.SampleEfficiency;
 import dev.terrace.cli.bench.SpeedBench;
 import dev.terrace.core.plugins.PluginRegistry;
@@ -18,7 +19,8 @@ import java.util.concurrent.atomic.AtomicInteger;
 @Command(name = "bench", mixinStandardHelpOptions = true,
         description = {"Run the benchmarks: evaluations needed on Branin, Hartmann-6 and the virtual chamber",
                 "(invented ground truth) against random search and a Latin hypercube, median over seeds;",
-                "and with --speed, the time and peak memory of 'propose --batch 4' on growing run logs."})
+                "and with --speed, the time and peak memory of 'propose --batch 4' on growing run logs.",
+                "The 'calibration' problem checks the printed yield and 90 %% intervals against the chamber's truth."})
 final class BenchCommand implements Callable<Integer> {
 
     @CommandLine.Spec
@@ -53,15 +55,34 @@ final class BenchCommand implements Callable<Integer> {
             return 0;
         }
         for (String p : problems) {
-            if (!Arrays.asList("branin", "hartmann6", "chamber").contains(p)) {
+            if (!Arrays.asList("branin", "hartmann6", "chamber", "calibration").contains(p)) {
                 throw new CommandLine.ParameterException(spec.commandLine(),
-                        "unknown problem '" + p + "'; expected branin, hartmann6 or chamber");
+                        "unknown problem '" + p + "'; expected branin, hartmann6, chamber or calibration");
             }
         }
         if (seeds < 1 || threads < 1) {
             throw new CommandLine.ParameterException(spec.commandLine(), "--seeds and --threads must be at least 1");
         }
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
+        if (problems.contains("calibration")) {
+            long c0 = System.nanoTime();
+            CalibrationBench.Result cal;
+            try (Progress bar = Progress.start("calibration", seeds, global)) {
+                AtomicInteger seen = new AtomicInteger();
+                cal = new CalibrationBench(seeds, threads, k -> {
+                    synchronized (bar) {
+                        bar.stepTo(seen.addAndGet(k));
+                    }
+                }).run(reg);
+            }
+            out.print(CalibrationBench.table(cal));
+            out.printf(java.util.Locale.ROOT, "(%.0f s on %d threads)%n%n", (System.nanoTime() - c0) / 1e9, threads);
+            out.flush();
+            problems = problems.stream().filter(p -> !p.equals("calibration")).toList();
+            if (problems.isEmpty()) {
+                return 0;
+            }
+        }
         AtomicInteger done = new AtomicInteger();
         SampleEfficiency se0 = new SampleEfficiency(seeds, threads, k -> { });
         long t0 = System.nanoTime();

@@ -16,7 +16,8 @@ import java.util.concurrent.Callable;
 
 /** {@code terrace demo}: copies the bundled demo campaign to a new folder and runs the job on it. */
 @Command(name = "demo", mixinStandardHelpOptions = true,
-        description = {"Copy the bundled demo campaign (invented data) to a new folder and check it.",
+        description = {"Run the whole job on the bundled demo campaign (invented data): copy it to a new folder,"
+                + " check it, fit its growth models, propose the next batch and write an HTML report there.",
                 "Never writes into an existing folder."})
 final class DemoCommand implements Callable<Integer> {
 

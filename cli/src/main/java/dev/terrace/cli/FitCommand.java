@@ -59,6 +59,9 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Allow --plot to replace an existing file.")
     boolean force;
 
+    /** The checked --plot target. */
+    private dev.terrace.core.io.SafeFiles.Target plotTarget;
+
     @Override
     public Integer call() throws Exception {
         if (!format.equals("table") && !format.equals("json")) {
@@ -76,9 +79,8 @@ final class FitCommand implements Callable<Integer> {
             if (!name.endsWith(".png") && !name.endsWith(".svg")) {
                 throw new CommandLine.ParameterException(spec.commandLine(), "--plot must end in .png or .svg");
             }
-            if (java.nio.file.Files.exists(plot) && !force) {
-                throw new CommandLine.ParameterException(spec.commandLine(), plot + " exists already; use --force to replace it");
-            }
+            plotTarget = dev.terrace.core.io.SafeFiles.target(plot).replacing(force).protecting(lc.inputs());
+            plotTarget.check();
         }
         FitReport report;
         try (Progress bar = Progress.startPhases("fit", 1, global)) {
@@ -127,7 +129,7 @@ final class FitCommand implements Callable<Integer> {
         dev.terrace.core.fit.Arrhenius a = dev.terrace.core.fit.Arrhenius.fit(t, n);
         var chart = dev.terrace.cli.plot.Plots.arrhenius(t, n, a.energyEv(), a.lo(), a.hi(),
                 density.name() + " (" + ReportCommand.chartUnit(density.unit().symbol()) + ")");
-        dev.terrace.cli.plot.Plots.save(chart, plot, 800, 600, force);
+        dev.terrace.cli.plot.Plots.save(chart, plotTarget, 800, 600);
         err.println(String.format(java.util.Locale.ROOT, "wrote %s (effective activation energy %.3f eV%s over %d runs)",
                 plot, a.energyEv(), Double.isFinite(a.lo()) ? String.format(java.util.Locale.ROOT, ", 95 %% %.3f to %.3f",
                         a.lo(), a.hi()) : "", a.n()));

@@ -1,12 +1,18 @@
 package dev.terrace.cli;
 
 import dev.terrace.core.InputException;
+import dev.terrace.core.io.OutputFailedException;
+import dev.terrace.core.io.OutputRefusedException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
 import java.io.InputStream;
 import java.io.PrintWriter;
+import java.nio.file.AccessDeniedException;
 import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.FileSystemException;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.NotDirectoryException;
 import java.util.Properties;
 
 /**
@@ -56,17 +62,61 @@ public final class Main implements Runnable {
      */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
         quietLibraries();
+        String algebraProblem = dev.terrace.core.linalg.Algebra.configurationProblem();
+        if (algebraProblem != null) {
+            err.println("terrace: " + algebraProblem);
+            err.flush();
+            return EXIT_INPUT;
+        }
         CommandLine cl = commandLine();
         cl.setOut(out);
         cl.setErr(err);
-        return cl.execute(args);
+        try {
+            return cl.execute(args);
+        } catch (OutOfMemoryError e) {
+            err.println("terrace: out of memory: the job needs more than the " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MiB of memory Java was given; try fewer runs or a smaller --batch or --grid, or give Java"
+                    + " more memory (for example TERRACE_JAVA_OPTS=-Xmx4g, or java -Xmx4g -jar ...)");
+            if (java.util.Arrays.asList(args).contains("--debug")) {
+                e.printStackTrace(err);
+            }
+            err.flush();
+            return EXIT_FAILED;
+        }
     }
 
     /** @return the configured command line; never null */
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         cl.setExecutionExceptionHandler(Main::handle);
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            CommandLine.Model.UsageMessageSpec um = sub.getCommandSpec().usageMessage();
+            um.description(firstSentenceJoined(um.description()));
+        }
         return cl;
+    }
+
+    /**
+     * Joins the source lines of a description's first sentence into one line (picocli lists a
+     * command by its first description line, so a sentence split over two lines would show cut);
+     * later lines are kept as written.
+     */
+    static String[] firstSentenceJoined(String[] lines) {
+        int end = 0;
+        while (end < lines.length - 1 && !lines[end].strip().endsWith(".") && !lines[end].strip().endsWith(":")) {
+            end++;
+        }
+        if (end == 0) {
+            return lines;
+        }
+        java.util.List<String> out = new java.util.ArrayList<>();
+        StringBuilder first = new StringBuilder();
+        for (int k = 0; k <= end; k++) {
+            first.append(k == 0 ? "" : " ").append(lines[k].strip());
+        }
+        out.add(first.toString());
+        out.addAll(java.util.Arrays.asList(lines).subList(end + 1, lines.length));
+        return out.toArray(new String[0]);
     }
 
     private static int handle(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
@@ -82,17 +132,34 @@ public final class Main implements Runnable {
         }
         if (e instanceof FileAlreadyExistsException) {
             err.println("terrace: " + ((FileAlreadyExistsException) e).getFile()
-                    + " exists already; Terrace never overwrites your files");
+                    + " exists already; Terrace never overwrites your files unless asked to (--force)");
             err.flush();
             return EXIT_INPUT;
         }
-        if (e instanceof JobFailedException) {
+        if (e instanceof JobFailedException || e instanceof OutputFailedException) {
             err.println("terrace: " + e.getMessage());
             err.flush();
             return EXIT_FAILED;
         }
+        if (e instanceof UsageException || e instanceof OutputRefusedException) {
+            err.println("terrace: " + e.getMessage());
+            if (debug) {
+                e.printStackTrace(err);
+            }
+            err.flush();
+            return EXIT_INPUT;
+        }
+        if (e instanceof FileSystemException) {
+            // a path the user gave that cannot be used: missing, a folder, not permitted, ...
+            err.println("terrace: " + fileProblem((FileSystemException) e));
+            if (debug) {
+                e.printStackTrace(err);
+            }
+            err.flush();
+            return EXIT_INPUT;
+        }
         if (e instanceof java.io.IOException) {
-            err.println("terrace: cannot read or write a file: " + e.getMessage());
+            err.println("terrace: reading or writing a file failed: " + e.getMessage());
         } else {
             err.println("terrace: internal error: " + e + (debug ? "" : " (run again with --debug for details)"));
         }
@@ -101,6 +168,26 @@ public final class Main implements Runnable {
         }
         err.flush();
         return EXIT_FAILED;
+    }
+
+    /** Words a file-system refusal with the path and what was expected. */
+    static String fileProblem(FileSystemException e) {
+        String file = e.getFile() == null ? "a file" : e.getFile();
+        String other = e.getOtherFile() == null ? "" : " (and " + e.getOtherFile() + ")";
+        String reason = e.getReason();
+        if (e instanceof NoSuchFileException) {
+            return file + other + " does not exist; expected an existing file or folder";
+        }
+        if (e instanceof AccessDeniedException) {
+            return "cannot use " + file + other + ": permission denied";
+        }
+        if (e instanceof NotDirectoryException) {
+            return file + " is not a folder; expected a folder";
+        }
+        if (reason != null && reason.toLowerCase(java.util.Locale.ROOT).contains("is a directory")) {
+            return file + other + " is a folder; expected a file";
+        }
+        return "cannot use " + file + other + ": " + (reason == null ? e.getClass().getSimpleName() : reason);
     }
 
     private static void quietLibraries() {
@@ -120,7 +207,8 @@ public final class Main implements Runnable {
                 }
             }
             return new String[] {"terrace " + p.getProperty("version", "unknown"),
-                    "GPL-3.0-or-later; Java " + System.getProperty("java.version")};
+                    "GPL-3.0-or-later; Java " + System.getProperty("java.version"),
+                    "linear algebra: " + dev.terrace.core.linalg.Algebra.description()};
         }
     }
 }

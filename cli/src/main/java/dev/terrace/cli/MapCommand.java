@@ -3,6 +3,7 @@ package dev.terrace.cli;
 import dev.terrace.cli.plot.Plots;
 import dev.terrace.core.Cautions;
 import dev.terrace.core.LoadedCampaign;
+import dev.terrace.core.io.SafeFiles;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.ParameterSpec;
 import dev.terrace.core.plugins.PluginRegistry;
@@ -75,6 +76,9 @@ final class MapCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Allow --out to replace an existing file (atomically).")
     boolean force;
 
+    /** The checked --out target. */
+    private SafeFiles.Target target;
+
     @Option(names = "--grid", paramLabel = "N", defaultValue = "" + WindowMap.DEFAULT_GRID,
             description = "Cells per axis, " + WindowMap.MIN_GRID + " to " + WindowMap.MAX_GRID + " (default: ${DEFAULT-VALUE}).")
     int grid;
@@ -107,13 +111,14 @@ final class MapCommand implements Callable<Integer> {
             if (!name.endsWith(".png") && !name.endsWith(".svg")) {
                 throw new CommandLine.ParameterException(cl, "--out must name a .png or .svg file, found " + out);
             }
-            if (Files.exists(out) && !force) {
-                throw new CommandLine.ParameterException(cl, out + " exists already; use --force to replace it");
-            }
         }
         PrintWriter err = cl.getErr();
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        if (out != null) {
+            target = SafeFiles.target(out).replacing(force).protecting(lc.inputs());
+            target.check();
+        }
         Campaign c = lc.campaign();
         if (pareto != null) {
             return front(cl, lc, reg);
@@ -163,7 +168,7 @@ final class MapCommand implements Callable<Integer> {
         if (out != null) {
             List<Proposal> proposals = Proposer.propose(sur, ProposeSettings.defaults().withSeed(seed)).proposals();
             JFreeChart chart = Plots.windowMap(map, lc.runLog().runs(), proposals, c);
-            Plots.save(chart, out, Plots.DEFAULT_WIDTH, Plots.DEFAULT_HEIGHT, force);
+            Plots.save(chart, target, Plots.DEFAULT_WIDTH, Plots.DEFAULT_HEIGHT);
             err.println("wrote " + out);
             err.flush();
         }
@@ -195,7 +200,7 @@ final class MapCommand implements Callable<Integer> {
         o.print(frontSummary(f, c, sur));
         o.flush();
         if (out != null) {
-            Plots.save(Plots.pareto(f), out, Plots.DEFAULT_WIDTH, Plots.DEFAULT_HEIGHT, force);
+            Plots.save(Plots.pareto(f), target, Plots.DEFAULT_WIDTH, Plots.DEFAULT_HEIGHT);
             cl.getErr().println("wrote " + out);
             cl.getErr().flush();
         }

@@ -1,12 +1,13 @@
 package dev.terrace.cli;
 
+import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.io.SafeFiles;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
 
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.util.List;
 
 /** {@code --format}, {@code --out} and {@code --force} for commands that print results. */
 final class OutputOptions {
@@ -17,18 +18,34 @@ final class OutputOptions {
     @Option(names = "--out", paramLabel = "FILE", description = "Also write the result to FILE (never overwrites without --force).")
     Path out;
 
-    @Option(names = "--force", description = "Allow --out to replace an existing file (atomically).")
+    @Option(names = "--force", description = {"Allow --out to replace an existing file (atomically); the campaign's own",
+            "files are never replaced."})
     boolean force;
 
+    /** The checked --out target, set by {@link #guard}. */
+    private SafeFiles.Target target;
+
+    /** Checks --format; --out is checked by {@link #guard} once the campaign is read. */
     void check(CommandLine.Model.CommandSpec spec) {
         if (!format.equals("table") && !format.equals("csv") && !format.equals("json")) {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--format must be table, csv or json, found '" + format + "'");
         }
-        if (out != null && java.nio.file.Files.exists(out) && !force) {
-            throw new CommandLine.ParameterException(spec.commandLine(),
-                    out + " exists already; use --force to replace it");
+    }
+
+    /**
+     * Checks --out against the campaign's inputs before any long work, so a refused output is
+     * reported at once.
+     *
+     * @param lc    the campaign read
+     * @param extra more inputs (a candidates file)
+     */
+    void guard(LoadedCampaign lc, List<SafeFiles.Input> extra) throws Exception {
+        if (out == null) {
+            return;
         }
+        target = SafeFiles.target(out).replacing(force).protecting(lc.inputs()).protecting(extra);
+        target.check();
     }
 
     void emit(CommandLine.Model.CommandSpec spec, String text) throws Exception {
@@ -39,7 +56,10 @@ final class OutputOptions {
         }
         o.flush();
         if (out != null) {
-            SafeFiles.write(out, text.getBytes(StandardCharsets.UTF_8), force);
+            if (target == null) {
+                throw new IllegalStateException("--out was not checked against the campaign's inputs");
+            }
+            target.write(text);
             spec.commandLine().getErr().println("wrote " + out);
             spec.commandLine().getErr().flush();
         }

@@ -21,6 +21,13 @@ import java.util.concurrent.Callable;
                 "inside its boxes and limits, ranked by predicted yield. The run log is never changed."})
 final class ProposeCommand implements Callable<Integer> {
 
+    /**
+     * Largest --explore accepted: 10 standard deviations of optimism. Beyond about 5 the optimistic
+     * probability of meeting a target window is already close to 1 for nearly every recipe (the
+     * normal tail beyond 5 sd is below 3e-7), so larger weights no longer tell recipes apart.
+     */
+    static final double MAX_EXPLORE = 10;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
@@ -64,8 +71,9 @@ final class ProposeCommand implements Callable<Integer> {
         if (batch < 1 || batch > 100) {
             throw new CommandLine.ParameterException(spec.commandLine(), "--batch must be 1 to 100, found " + batch);
         }
-        if (!(explore >= 0) || !Double.isFinite(explore)) {
-            throw new CommandLine.ParameterException(spec.commandLine(), "--explore must be a number >= 0");
+        if (!(explore >= 0) || !(explore <= MAX_EXPLORE)) {
+            throw new CommandLine.ParameterException(spec.commandLine(), "--explore must be a number from 0 to "
+                    + (int) MAX_EXPLORE + " (standard deviations of optimism), found " + explore);
         }
         if (withinRuns != null && !(withinRuns >= 0 && withinRuns <= ProposeSettings.MAX_WITHIN_RUNS)) {
             throw new CommandLine.ParameterException(spec.commandLine(),
@@ -75,6 +83,7 @@ final class ProposeCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        output.guard(lc, java.util.List.of());
         ProposeSettings s = ProposeSettings.defaults().withBatch(batch).withSeed(seed).withExplore(explore)
                 .withPhysics(!noPhysics).withWithinRuns(withinRuns == null ? Double.POSITIVE_INFINITY : withinRuns);
         ProposalSet set;

@@ -50,7 +50,9 @@ final class RankCommand implements Callable<Integer> {
         output.check(spec);
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        output.guard(lc, java.util.List.of(new dev.terrace.core.io.SafeFiles.Input(candidates, "candidates file")));
         RunLog cands = RunLogReader.readCandidates(lc.campaign(), candidates);
+        refuseUnrankable(lc.campaign(), cands);
         ProposeSettings s = ProposeSettings.defaults().withSeed(seed).withPhysics(!noPhysics);
         CampaignSurrogate sur;
         try (Progress bar = Progress.startPhases("rank", 1, global)) {
@@ -61,5 +63,29 @@ final class RankCommand implements Callable<Integer> {
         ProposalSet set = Proposer.rank(sur, cands.runs(), s);
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
         return 0;
+    }
+
+    /** Exit 2 before any fitting when no candidate gives every setting, naming what is missing. */
+    private void refuseUnrankable(dev.terrace.core.campaign.Campaign c, RunLog cands) {
+        if (cands.runs().isEmpty()) {
+            throw new UsageException("--candidates " + candidates + " holds no candidate recipes; expected a header row"
+                    + " naming the settings (" + c.parameters().stream().map(p -> p.name())
+                    .collect(java.util.stream.Collectors.joining(", ")) + ") and one row per candidate");
+        }
+        java.util.List<String> why = new java.util.ArrayList<>();
+        for (dev.terrace.core.runlog.Run r : cands.runs()) {
+            java.util.List<String> missing = c.parameters().stream()
+                    .filter(p -> p.isCategorical() ? r.category(p.name()).isEmpty() : r.number(p.name()).isEmpty())
+                    .map(p -> p.name()).toList();
+            if (missing.isEmpty()) {
+                return;
+            }
+            if (why.size() < 3) {
+                why.add(r.runId() + " has no " + String.join(", ", missing));
+            }
+        }
+        throw new UsageException("--candidates " + candidates + ": no candidate can be ranked, each leaves out a setting ("
+                + String.join("; ", why) + (cands.runs().size() > 3 ? "; ..." : "")
+                + "); expected a value for every setting of campaign " + c.id());
     }
 }

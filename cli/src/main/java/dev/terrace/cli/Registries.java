@@ -4,6 +4,7 @@ import dev.terrace.core.plugins.PluginProblem;
 import dev.terrace.core.plugins.PluginRegistry;
 
 import java.io.PrintWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
 
 /** Builds the plugin registry from the global options and reports discovery problems. */
@@ -13,6 +14,10 @@ final class Registries {
 
     static PluginRegistry load(GlobalOptions g, PrintWriter err) {
         Path dir = g.pluginDir;
+        if (dir != null && !Files.isDirectory(dir)) {
+            throw new UsageException("--plugins " + dir + (Files.exists(dir) ? " is not a folder" : " does not exist")
+                    + "; expected a folder of growth-model plugin jars");
+        }
         if (dir == null) {
             String env = System.getenv(PluginRegistry.PLUGIN_DIR_ENV);
             if (env != null && !env.isBlank()) {

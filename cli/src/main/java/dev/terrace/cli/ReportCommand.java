@@ -59,8 +59,8 @@ import java.util.function.Supplier;
  * Arrhenius plot, window maps, the proposed next runs, the safety cautions and what the numbers mean.
  */
 @Command(name = "report", mixinStandardHelpOptions = true,
-        description = {"Write one self-contained HTML report of a campaign (inline figures, no scripts, prints on A4):",
-                "runs and targets, fitted parameters, validation, window maps, proposals and safety cautions.",
+        description = {"Write one self-contained HTML report of a campaign (inline figures, no scripts, prints on A4)",
+                "with runs and targets, fitted parameters, validation, window maps, proposals and safety cautions.",
                 "Never overwrites a file without --force and never touches the run log."})
 final class ReportCommand implements Callable<Integer> {
 
@@ -104,17 +104,16 @@ final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        if (Files.exists(out) && !force) {
-            throw new CommandLine.ParameterException(spec.commandLine(),
-                    out + " exists already; use --force to replace it");
-        }
         PrintWriter err = spec.commandLine().getErr();
         String html;
+        SafeFiles.Target target;
         try (Progress bar = Progress.startPhases("report", PHASES.size(), global)) {
             bar.message(PHASES.get(0));
             PluginRegistry reg = Registries.load(global, err);
             LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
-            refuseRunLog(lc);
+            // the report never replaces the campaign file or its run log, whatever --force says
+            target = SafeFiles.target(out).replacing(force).protecting(lc.inputs());
+            target.check();
             for (Diagnostic d : lc.warnings()) {
                 err.println(d);
             }
@@ -123,25 +122,12 @@ final class ReportCommand implements Callable<Integer> {
             html = HtmlReport.render(content);
             bar.step();
         }
-        SafeFiles.write(out, html.getBytes(StandardCharsets.UTF_8), force);
+        target.write(html);
         if (!global.quiet) {
             err.println("wrote " + out);
         }
         err.flush();
         return 0;
-    }
-
-    /** The report never replaces the campaign file or its run log, whatever --force says. */
-    private void refuseRunLog(LoadedCampaign lc) throws java.io.IOException {
-        Path target = out.toAbsolutePath().normalize();
-        for (Path p : List.of(lc.campaign().file(), lc.runLog().file())) {
-            Path q = p.toAbsolutePath().normalize();
-            boolean same = q.equals(target) || (Files.exists(target) && Files.exists(q) && Files.isSameFile(q, target));
-            if (same) {
-                throw new CommandLine.ParameterException(spec.commandLine(),
-                        "--out " + out + " is the campaign's own file " + p + "; the report never writes over it");
-            }
-        }
     }
 
     /** Computes every part of the report; a part that fails is left out with the reason. */

@@ -71,6 +71,9 @@ final class ValidateCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
+        if (plots != null && java.nio.file.Files.exists(plots) && !java.nio.file.Files.isDirectory(plots)) {
+            throw new UsageException("--plots " + plots + " is a file; expected a folder (it is created if missing)");
+        }
         int usable = Validation.usableRuns(lc);
         if (usable < Validation.MIN_RUNS) {
             throw new JobFailedException("campaign " + lc.campaign().id() + " has " + usable + " ok run"
@@ -100,7 +103,8 @@ final class ValidateCommand implements Callable<Integer> {
                 var chart = dev.terrace.cli.plot.Plots.parity(o.outcome() + " ("
                         + ReportCommand.chartUnit(oc.unit().symbol()) + ")", o.scale().equals("log10"), o.parity());
                 Path f = plots.resolve("parity-" + o.outcome() + ".png");
-                dev.terrace.cli.plot.Plots.save(chart, f, 800, 640, false);
+                dev.terrace.cli.plot.Plots.save(chart, dev.terrace.core.io.SafeFiles.target(f).creatingFolders()
+                        .protecting(lc.inputs()), 800, 640);
                 err.println("wrote " + f);
             }
             err.flush();

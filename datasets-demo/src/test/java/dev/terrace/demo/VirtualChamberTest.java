@@ -180,8 +180,9 @@ class VirtualChamberTest {
 
     @Test
     void coldRateExponentIsTheThreeDimensionalValueForASingleAtomNucleus() {
-        // chi = i/(i + 2.5) = 0.2857 for 3D islands, i = 1, complete condensation (Venables 1984
-        // review table; physics-check-values.md section 1a). At 150 degC ripening is negligible.
+        // chi = i/(i + 2.5) = 1/3.5 = 0.2857 for 3D islands, i = 1, complete condensation (Venables,
+        // Spiller, Hanbuecken, Rep. Prog. Phys. 47, 399 (1984), regime table; from memory). At 150 degC
+        // ripening is negligible.
         // Seed 5, 150 degC, 1e-4 Torr, rates 0.02 and 0.5 ML/s (ratio 25), 400 runs each: test design choice.
         VirtualChamber ch = VirtualChamber.of(droplets, singleAtomNucleus(), 5);
         Map<String, Double> slow = drop(150, 1e-4);
@@ -198,7 +199,8 @@ class VirtualChamberTest {
     @Test
     void coldArrheniusEnergyIsTheBarrierOverThreeAndAHalfOnTheSurfaceTemperature() {
         // Arrhenius energy (E_i + i E_d)/(i + 2.5) = 0.65/3.5 = 0.186 eV for i = 1 on c(4x4)
-        // (Venables 1984 [memory], physics-check-values.md 1a), on the surface temperature, which is
+        // (Venables, Spiller, Hanbuecken, Rep. Prog. Phys. 47, 399 (1984); from memory), on the surface
+        // temperature, which is
         // the reading minus 15 K: fitting against the reading would give another energy.
         // 0.65 eV: invented truth of the virtual chamber (Truth.Nucleation.DEFAULT_BARRIER_AS_RICH_EV);
         // 3.5 = i + 2.5 for i = 1 (Venables et al. 1984, from memory). Seed 6, 130 and 180 degC, 1e-4 Torr and
@@ -223,7 +225,8 @@ class VirtualChamberTest {
     @Test
     void dotsFormColdUnderAHighArsenicFlux() {
         // Compact dots at low T and high As flux (Watanabe, Koguchi and Gotoh, JJAP 39, L79 (2000);
-        // physics-check-values.md 2b: (150 degC, 1e-4 Torr) must give "dot").
+        // also "modified droplet epitaxy" with high As flux at low substrate temperature, JJAP Part 2 (2000)):
+        // (150 degC, 1e-4 Torr) lies in that compact-dot window.
         // The Watanabe citation is from memory. Seed 21, 300 runs and the 95 % threshold: test design choice.
         List<RunResult> runs = repeat(VirtualChamber.of(droplets, 21), drop(150, 1e-4), as("As4"), 300);
         assertTrue(fraction(runs, "shape", "dot") > 0.95, "dot fraction " + fraction(runs, "shape", "dot"));
@@ -232,7 +235,7 @@ class VirtualChamberTest {
     @Test
     void holesFormHotWithAlmostNoArsenic() {
         // Local droplet etching at 570-620 degC with As below 1e-7 Torr (Heyn et al., Nanoscale
-        // Res. Lett. 9, 285 (2014); physics-check-values.md 2b: (620 degC, < 1e-7 Torr) gives "hole").
+        // Res. Lett. 9, 285 (2014)): (620 degC, < 1e-7 Torr) lies in that hole window.
         // The Heyn citation details are from memory (the values were read in the paper's text).
         // Seed 22, 3e-8 Torr (below 1e-7), 300 runs and the 80 % threshold: test design choice.
         List<RunResult> runs = repeat(VirtualChamber.of(droplets, 22), drop(620, 3e-8), as("As4"), 300);
@@ -250,8 +253,8 @@ class VirtualChamberTest {
 
     @Test
     void ringsAndDisksFormAtIntermediateTemperatureUnderLowArsenic() {
-        // Rings and disks at intermediate T and lower As flux (Mano et al., Nano Lett. 5, 425 (2005);
-        // physics-check-values.md 2b).
+        // Rings and disks at intermediate T (about 200-400 degC) and lower As flux (about 1e-7 to 1e-5 Torr)
+        // (Mano et al., Nano Lett. 5, 425 (2005); Somaschini et al., Nanoscale Res. Lett. 5, 1865 (2010)).
         // Seed 23, (300 degC, 1e-7 Torr) inside the published window, 300 runs, 90 % threshold: test design choice.
         List<RunResult> runs = repeat(VirtualChamber.of(droplets, 23), drop(300, 1e-7), as("As4"), 300);
         double spread = fraction(runs, "shape", "ring") + fraction(runs, "shape", "disk");
@@ -261,7 +264,7 @@ class VirtualChamberTest {
     @Test
     void ringDiameterDoesNotShrinkAsTemperatureRises() {
         // At fixed As flux the ring radius must not decrease as T rises (Somaschini et al., Nanoscale
-        // Res. Lett. 5, 1865 (2010); physics-check-values.md suggested test 10).
+        // Res. Lett. 5, 1865 (2010): the Ga diffusion area grows with T, Arrhenius-like).
         // Seed 24, 225-325 degC, 1e-6 Torr, 400 runs a point, at least 20 rings: test design choice.
         VirtualChamber ch = reliable(droplets, 24);
         double previous = Double.NEGATIVE_INFINITY;

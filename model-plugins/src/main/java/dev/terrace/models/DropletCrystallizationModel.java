@@ -217,7 +217,7 @@ public final class DropletCrystallizationModel implements GrowthModel {
                     "sticking coefficient of As2, Sb2 or P2 molecules"),
             ModelParameter.continuous(CONTACT_ANGLE, "deg", DEFAULT_CONTACT_ANGLE_DEG, 10, 170, false,
                     "hemisphere as the simple limit (common practice); fitted from measured diameters",
-                    "contact angle of the liquid droplet"),
+                    "contact angle of the liquid droplet").withMeaning(IslandNucleationModel.MEANING_CONTACT_ANGLE),
             ModelParameter.continuous(DOT_RING_CUT, "", DEFAULT_DOT_RING_CUT, -5, 8, false,
                     "no published value; set so defaults give dots at 150 °C/1e-4 Torr As4 and rings at "
                             + "300 °C/1e-6 Torr (Watanabe et al. 2000, from memory; Mano et al. 2005); fitted",
@@ -397,7 +397,9 @@ public final class DropletCrystallizationModel implements GrowthModel {
             notes.add("above about " + ModelSupport.celsius(CONGRUENT_EVAPORATION_GAAS_K) + " GaAs evaporates "
                     + "incongruently without enough As flux and Ga droplets form by themselves");
         }
-        Validity validity = reasons.isEmpty() ? Validity.ok() : Validity.outside(String.join("; ", reasons));
+        // too few atoms per droplet depends on the recipe and the upstream density, not on these parameters
+        Validity validity = reasons.isEmpty() ? Validity.ok() : atoms < 1
+                ? Validity.notApplicable(String.join("; ", reasons)) : Validity.outside(String.join("; ", reasons));
         return new Prediction(values, Map.of(Role.MORPHOLOGY, probabilities), validity, notes);
     }
 

@@ -76,6 +76,12 @@ public final class IslandNucleationModel implements GrowthModel {
     public static final String CONTACT_ANGLE = "contact_angle";
 
     /**
+     * Shared meaning of the droplet contact angle: {@code droplet-crystallization} declares the same one,
+     * so a chain of both fits one angle.
+     */
+    public static final String MEANING_CONTACT_ANGLE = "droplet_contact_angle";
+
+    /**
      * Default island dimension, 3: Terrace uses this plugin mainly for metal droplets (droplet epitaxy),
      * which are three-dimensional (alpha = 2.5, Venables, Surf. Sci. 299/300, 798 (1994), from memory).
      * Set 2, or let the fit choose, for 2D islands in film growth.
@@ -100,7 +106,7 @@ public final class IslandNucleationModel implements GrowthModel {
         p.add(ModelParameter.continuous(CONTACT_ANGLE, "deg", DEFAULT_CONTACT_ANGLE_DEG, 10, 170, false,
                 "hemisphere as the simple limit (common practice); no general published value used, real Ga "
                         + "droplets on GaAs wet at smaller angles; fitted from measured diameters",
-                "contact angle of the liquid droplet on the substrate"));
+                "contact angle of the liquid droplet on the substrate").withMeaning(MEANING_CONTACT_ANGLE));
         PARAMETERS = List.copyOf(p);
     }
 

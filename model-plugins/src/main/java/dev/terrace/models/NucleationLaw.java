@@ -139,6 +139,12 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
                 values.get(SURFACTANT_BARRIER_SHIFT), alpha);
     }
 
+    /** Shared meaning of the adatom diffusion barrier: one value across the models of a chain. */
+    public static final String MEANING_DIFFUSION_BARRIER = "adatom_diffusion_barrier";
+
+    /** Shared meaning of the adatom attempt frequency: one value across the models of a chain. */
+    public static final String MEANING_ATTEMPT_FREQUENCY = "adatom_attempt_frequency";
+
     /**
      * The six shared parameter definitions, with defaults, bounds and sources.
      *
@@ -149,11 +155,11 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
                 ModelParameter.continuous(DIFFUSION_BARRIER, "eV", DEFAULT_DIFFUSION_BARRIER_EV, 0.05, 2.0, false,
                         "Wang et al., Chin. Phys. B 29, 046801 (2020): Ga on GaAs(001), 0.7 ± 0.1 eV; bounds span "
                                 + "published adatom barriers from about 0.1 eV (Ag/Ag(111)) to above 1 eV",
-                        "adatom hop barrier E_d; D = (nu0/4)·exp(-E_d/kT)"),
+                        "adatom hop barrier E_d; D = (nu0/4)·exp(-E_d/kT)").withMeaning(MEANING_DIFFUSION_BARRIER),
                 ModelParameter.continuous(ATTEMPT_FREQUENCY, "Hz", DEFAULT_ATTEMPT_FREQUENCY_HZ, 1e9, 1e15, true,
                         "common practice (lattice vibration frequency); published fits range about 1e11-1e14 Hz "
                                 + "(Brune et al., PRB 52, R14380 (1995), from memory)",
-                        "total attempt frequency nu0 out of a site"),
+                        "total attempt frequency nu0 out of a site").withMeaning(MEANING_ATTEMPT_FREQUENCY),
                 ModelParameter.discrete(CRITICAL_SIZE, DEFAULT_CRITICAL_SIZE, List.of(1.0, 2.0, 3.0),
                         "Tuktamyshev et al., Sci. Rep. 11 (2021): i = 1-2 for Ga droplets on GaAs(111)A",
                         "critical cluster size i (the largest unstable cluster)"),

@@ -210,7 +210,9 @@ public final class StepFlowModel implements GrowthModel {
         Map<String, Double> probabilities = new LinkedHashMap<>();
         probabilities.put(STEP_FLOW, pStep);
         probabilities.put(ISLANDS, 1.0 - pStep);
-        Validity validity = reasons.isEmpty() ? Validity.ok() : Validity.outside(String.join("; ", reasons));
+        // a miscut beyond the vicinal picture is a property of the recipe, not of the parameters
+        Validity validity = reasons.isEmpty() ? Validity.ok() : miscut > MAX_MISCUT_DEG
+                ? Validity.notApplicable(String.join("; ", reasons)) : Validity.outside(String.join("; ", reasons));
         return new Prediction(Map.of(), Map.of(Role.GROWTH_MODE, probabilities), validity, notes);
     }
 

@@ -17,9 +17,8 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Contract cases plus published regime checks for {@link DropletCrystallizationModel}. Check values come
- * from the researched physics check values (§2; their original sources are named beside each value); each
- * assertion names its source. Group-V fluxes are converted from flux-gauge readings with {@link RoughBeamFlux}.
+ * Contract cases plus published regime checks for {@link DropletCrystallizationModel}. Each check value
+ * names its primary source beside it and shows the arithmetic of any derived number. Group-V fluxes are converted from flux-gauge readings with {@link RoughBeamFlux}.
  */
 class DropletCrystallizationModelTest extends GrowthModelContractTest {
 
@@ -38,7 +37,8 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
     @Override
     protected Conditions typicalConditions() {
         // Ga droplets, 1 ML at 1e9 cm^-2, crystallised at 150 °C under 1e-5 Torr As4 (invented typical recipe
-        // in the compact-dot range of the Koguchi group's droplet epitaxy, physics-check-values.md §2b).
+        // in the compact-dot range of low-temperature droplet epitaxy, Watanabe, Koguchi, Gotoh, JJAP 39, L79 (2000),
+        // citation from memory).
         return recipe(150, 1.0, 1e9, RoughBeamFlux.atomFlux(1e-5, "As4"), "As4");
     }
 
@@ -61,8 +61,8 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
     @Test
     void lowTemperatureHighArsenicFluxGivesDots() {
         // compact dots at 150 °C under 1e-4 Torr As4 BEP: Watanabe, Koguchi, Gotoh, JJAP 39, L79 (2000) (from memory);
-        // "modified droplet epitaxy", JJAP Part 2 (2000) (physics-check-values.md §2b). Droplets: 2 ML at 1e8 cm^-2
-        // and 1 ML at 1e10 cm^-2 (radii 48.4 and 8.3 nm, §2a).
+        // "modified droplet epitaxy" with high As flux at low substrate temperature, JJAP Part 2 (2000). Droplets:
+        // 2 ML at 1e8 cm^-2 and 1 ML at 1e10 cm^-2 (hemisphere radii 48.4 and 8.3 nm; see deepDotDiameter... below).
         double flux = RoughBeamFlux.atomFlux(1e-4, "As4");
         for (double[] droplet : new double[][] {{2, 1e8}, {1, 1e10}}) {
             Prediction p = model.predict(recipe(150, droplet[0], droplet[1], flux, "As4"), GAAS_GA, defaults);
@@ -75,7 +75,8 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
     @Test
     void hotSubstrateWithArsenicBelow1e7TorrGivesHoles() {
         // local droplet etching at 570-620 °C with the As reading below 1e-7 Torr: Heyn et al., Nanoscale Res. Lett.
-        // 9, 285 (2014) (citation from memory; physics-check-values.md §2b). 1e-8 Torr As4, and the valve closed.
+        // 9, 285 (2014) (citation from memory; the temperatures were read in the paper). 1e-8 Torr As4, and the
+        // valve closed.
         for (double flux : new double[] {RoughBeamFlux.atomFlux(1e-8, "As4"), 0.0}) {
             Prediction p = model.predict(recipe(620, 2.0, 1e8, flux, "As4"), GAAS_GA, defaults);
             assertTrue(p.validity().valid(), p.validity().reason());
@@ -87,7 +88,7 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
     @Test
     void intermediateTemperatureAndFluxGivesRings() {
         // rings at intermediate T (200-400 °C) and lower As flux (1e-7 to 1e-5 Torr): Mano et al., Nano Lett. 5, 425
-        // (2005); Somaschini et al., Nanoscale Res. Lett. 5, 1865 (2010) (physics-check-values.md §2b).
+        // (2005); Somaschini et al., Nanoscale Res. Lett. 5, 1865 (2010) (windows as read in those papers' abstracts).
         // 300 °C, 1e-6 Torr As4, droplets of 1 ML at 1e9 and 2 ML at 1e8 cm^-2 (radii 17.8 and 48.4 nm).
         double flux = RoughBeamFlux.atomFlux(1e-6, "As4");
         for (double[] droplet : new double[][] {{1, 1e9}, {2, 1e8}}) {
@@ -98,7 +99,9 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
 
     @Test
     void etchingNeedsBothHighTemperatureAndLowFlux() {
-        // the hole regime depends on the As flux, not only on T: Zhou et al., APL (2010) (physics-check-values.md §2b)
+        // the hole regime depends on the As flux, not only on T: Zhou, Zheng, Tang, Jesson, Tersoff, "Congruent
+        // evaporation temperature of GaAs(001) controlled by As flux", Appl. Phys. Lett. (2010) (volume and page
+        // not recorded)
         Prediction hotWithArsenic = model.predict(recipe(620, 2.0, 1e8, RoughBeamFlux.atomFlux(1e-5, "As4"), "As4"),
                 GAAS_GA, defaults);
         assertNotEquals(DropletCrystallizationModel.HOLE, mostLikely(hotWithArsenic));
@@ -110,7 +113,7 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
     @Test
     void featureDiameterNeverShrinksAsCrystallisationTemperatureRises() {
         // ring and outer-disk diameters grow with crystallisation T at fixed As flux: Mano et al. 2005; Somaschini
-        // et al. 2010; CNR ring/disk study 2011 (physics-check-values.md §2b)
+        // et al. 2010 (Arrhenius growth of the Ga diffusion area)
         for (double bep : new double[] {1e-4, 1e-6, 1e-8}) {
             double flux = RoughBeamFlux.atomFlux(bep, "As4");
             double previous = 0;
@@ -135,14 +138,16 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
 
     @Test
     void deepDotDiameterIsTheHemisphereDropletDiameter() {
-        // hemisphere radii 48.4 nm (2 ML, 1e8), 17.8 nm (1 ML, 1e9), 8.3 nm (1 ML, 1e10), liquid Ga 5.265e22 cm^-3
-        // (physics-check-values.md §2a, derived); at 30 °C under 1e-4 Torr As4 the Ga barely migrates
+        // hemisphere diameters d = 2 (3V/(2 pi))^(1/3), V = theta N0/(N_d rho), with N0 = 6.258e14 cm^-2 and liquid
+        // Ga rho = 52.65 nm^-3 (see IslandNucleationModelTest.hemisphereDropletDiametersMatchVolumeGoldenValues for
+        // the arithmetic): 96.83511 nm (2 ML, 1e8), 35.67436 nm (1 ML, 1e9), 16.55857 nm (1 ML, 1e10); at 30 °C
+        // under 1e-4 Torr As4 the Ga barely migrates, so the dot keeps the droplet's base
         double flux = RoughBeamFlux.atomFlux(1e-4, "As4");
-        double[][] cases = {{2, 1e8, 48.4}, {1, 1e9, 17.8}, {1, 1e10, 8.3}};
+        double[][] cases = {{2, 1e8, 96.83511}, {1, 1e9, 35.67436}, {1, 1e10, 16.55857}};
         for (double[] k : cases) {
             double d = model.predict(recipe(30, k[0], k[1], flux, "As4"), GAAS_GA, defaults)
                     .value(Role.ISLAND_DIAMETER).orElseThrow();
-            assertEquals(2 * k[2], d, 0.1, "diameter for " + k[0] + " ML at " + k[1]);
+            assertEquals(k[2], d, 1e-6 * k[2], "diameter for " + k[0] + " ML at " + k[1]);
         }
     }
 
@@ -152,13 +157,18 @@ class DropletCrystallizationModelTest extends GrowthModelContractTest {
         // 1e-4 Torr As4 gives 6.064e16 atoms cm^-2 s^-1 (RoughBeamFlux), s = 0.5, tau = N0/(s·J) = 0.02064 s,
         // L = 6.16 nm (arithmetic done here, a regression value for the formula only)
         double flux = RoughBeamFlux.atomFlux(1e-4, "As4");
-        assertEquals(6.064e16, flux, 0.005e16);
+        assertEquals(6.06407e16, flux, 1e-5 * 6.06407e16);
         double l = DropletCrystallizationModel.migrationLengthNm(423.15, flux, 0.5, 0.7, 1e13, 6.258e14);
         double kT = NucleationLaw.BOLTZMANN_EV_PER_K * 423.15;
         double dc = 2.5e12 * Math.exp(-0.7 / kT) * 1e14 / 6.258e14;
         double tau = 6.258e14 / (0.5 * flux);
         assertEquals(Math.sqrt(dc * tau), l, 1e-9 * l);
-        assertEquals(6.16, l, 0.01);
+        assertEquals(6.15959, l, 1e-5 * 6.15959);
+        // Arrhenius: tau does not depend on T, so L(T2)/L(T1) = exp(E_c/(2k) (1/T1 - 1/T2)) with
+        // k = 8.617333262e-5 eV/K (CODATA 2018); 150 -> 250 °C: exp(0.7/(2k) (1/423.15 - 1/523.15)) = 6.26351
+        double hot = DropletCrystallizationModel.migrationLengthNm(523.15, flux, 0.5, 0.7, 1e13, 6.258e14);
+        assertEquals(Math.exp(0.7 / (2 * 8.617333262e-5) * (1 / 423.15 - 1 / 523.15)), hot / l, 1e-9 * hot / l);
+        assertEquals(6.26351, hot / l, 1e-5 * 6.26351);
         // quadrupling the flux halves L
         assertEquals(0.5, DropletCrystallizationModel.migrationLengthNm(423.15, 4 * flux, 0.5, 0.7, 1e13, 6.258e14) / l,
                 1e-12);

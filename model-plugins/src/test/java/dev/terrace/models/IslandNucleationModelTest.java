@@ -15,8 +15,8 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Contract cases plus golden values for {@link IslandNucleationModel}. Check values come from the researched
- * physics check values (their original sources are named beside each value); each assertion names its source.
+ * Contract cases plus golden values for {@link IslandNucleationModel}. Each check value names its primary
+ * source beside it and shows the arithmetic of any derived number.
  */
 class IslandNucleationModelTest extends GrowthModelContractTest {
 
@@ -88,59 +88,71 @@ class IslandNucleationModelTest extends GrowthModelContractTest {
 
     @Test
     void exponentsFor3dIslandsAreIOverIPlus2Point5() {
-        // chi = 0.2857, 0.4444, 0.5455: Venables 1984 review table; Venables, Surf. Sci. 299/300, 798 (1994) (from memory)
-        double[] expected = {0.2857, 0.4444, 0.5455};
+        // chi = i/(i + 2.5) = 1/3.5, 2/4.5, 3/5.5 = 0.285714, 0.444444, 0.545455: Venables, Spiller,
+        // Hanbuecken, Rep. Prog. Phys. 47, 399 (1984), regime table; Venables, Surf. Sci. 299/300, 798 (1994)
+        // (from memory). A tenfold rate step must change ln N by exactly chi ln 10.
+        double[] expected = {1 / 3.5, 2 / 4.5, 3 / 5.5};
         for (int i = 1; i <= 3; i++) {
             double slope = Math.log(density(600, 0.2, params(i, 3), GAAS_FILM) / density(600, 0.02, params(i, 3),
                     GAAS_FILM)) / Math.log(10);
-            assertEquals(expected[i - 1], slope, 1e-4, "3D log-log slope for i = " + i);
+            assertEquals(expected[i - 1], slope, 1e-9, "3D log-log slope for i = " + i);
         }
     }
 
     @Test
     void doublingRateRaisesDensityBy2ToTheChi() {
-        // 2^chi = 1.2599, 1.4142, 1.5157 for i = 1, 2, 3 in 2D (physics-check-values.md §1a, derived from Venables 1984)
-        double[] expected = {1.2599, 1.4142, 1.5157};
+        // N ~ F^chi with chi = i/(i+2) (Venables, Spiller, Hanbuecken, Rep. Prog. Phys. 47, 399 (1984)), so doubling
+        // F multiplies N by exactly 2^(1/3) = 1.259921, 2^(1/2) = 1.414214, 2^(3/5) = 1.515717 for i = 1, 2, 3.
+        double[] expected = {Math.cbrt(2), Math.sqrt(2), Math.pow(2, 0.6)};
         for (int i = 1; i <= 3; i++) {
             double ratio = density(550, 0.4, params(i, 2), GAAS_FILM) / density(550, 0.2, params(i, 2), GAAS_FILM);
-            assertEquals(expected[i - 1], ratio, 1e-4, "N(2F)/N(F) for i = " + i);
+            assertEquals(expected[i - 1], ratio, 1e-9 * expected[i - 1], "N(2F)/N(F) for i = " + i);
         }
     }
 
     @Test
     void goldenDensityOnGaAsAtFixedHopToDepositionRatio() {
-        // eta = 0.25, i = 1, 2D: D/F = 1e6, 1e8, 1e9 -> 1.564e12, 3.371e11, 1.564e11 cm^-2 on GaAs(001)
-        // (physics-check-values.md §1a, derived from Bales & Chrzan 1994 / Amar, Family, Lam 1994 with eta = 0.25)
+        // N/N0 = eta (F/D)^(1/3) for i = 1, 2D islands (Venables, Spiller, Hanbuecken, Rep. Prog. Phys. 47, 399
+        // (1984)), eta = 0.25 for point islands at 0.1-0.2 ML (Bales & Chrzan, Phys. Rev. B 50, 6057 (1994);
+        // Amar, Family, Lam, Phys. Rev. B 50, 8781 (1994); the value 0.25 from memory). N0 = 6.258e14 cm^-2.
+        // D/F = 1e6: 0.25 * 1e-2 = 2.5e-3 -> 1.5645e12 cm^-2; D/F = 1e8: 0.25 * 1e-8^(1/3) = 5.386087e-4
+        // -> 3.370613e11 cm^-2; D/F = 1e9: 0.25 * 1e-3 = 2.5e-4 -> 1.5645e11 cm^-2.
         double[] ratios = {1e6, 1e8, 1e9};
-        double[] expected = {1.564e12, 3.371e11, 1.564e11};
+        double[] expected = {1.5645e12, 3.370613e11, 1.5645e11};
         for (int k = 0; k < ratios.length; k++) {
             double n = density(temperatureForHopRatio(ratios[k]), 1.0, params(1, 2), GAAS_FILM);
-            assertEquals(expected[k], n, expected[k] * 1e-3, "N at D/F = " + ratios[k]);
+            assertEquals(expected[k], n, expected[k] * 1e-6, "N at D/F = " + ratios[k]);
         }
         double perSite = density(temperatureForHopRatio(1e8), 1.0, params(1, 2), GAAS_FILM) / 6.258e14;
-        assertEquals(5.386e-4, perSite, 1e-6, "N/N0 at D/F = 1e8");
+        assertEquals(5.386087e-4, perSite, 1e-6 * 5.386087e-4, "N/N0 at D/F = 1e8");
     }
 
     @Test
     void attemptFrequencyIsTotalRateNotPerDirection() {
-        // D = (nu0/4)exp(-E/kT) (Venables' and Brune's usual form). Reading nu0 per direction (D = nu0 exp(-E/kT))
-        // would lower N by 4^(-chi) = 0.630 (i = 1), 0.500 (i = 2), 0.435 (i = 3) (physics-check-values.md §1b).
-        double[] factor = {0.630, 0.500, 0.435};
+        // D = (nu0/4)exp(-E/kT): nu0 is the total attempt rate out of a site on a square lattice, four hop
+        // directions (Einstein relation in 2D, D = Gamma a^2/4; Venables' usual form, from memory). Reading nu0
+        // per direction (D = nu0 exp(-E/kT)) would raise D by 4 and so scale N by 4^(-chi):
+        // 4^(-1/3) = 0.629961 (i = 1), 4^(-1/2) = 0.5 (i = 2), 4^(-3/5) = 0.435275 (i = 3).
+        double[] factor = {Math.pow(4, -1 / 3.0), 0.5, Math.pow(4, -0.6)};
         double t = 600;
         double rate = 0.5;
         for (int i = 1; i <= 3; i++) {
             double n = density(t, rate, params(i, 2), GAAS_FILM);
             double chi = i / (i + 2.0);
             double perDirection = 0.25 * 6.258e14 * Math.pow(rate / (1e13 * Math.exp(-0.7 / (KB * t))), chi);
-            assertEquals(factor[i - 1], perDirection / n, 1e-3, "factor-4 convention for i = " + i);
+            assertEquals(factor[i - 1], perDirection / n, 1e-9, "factor-4 convention for i = " + i);
         }
     }
 
     @Test
     void arrheniusRatioBetween200And250CelsiusMatchesGolden() {
-        // i = 1, 2D, E_d = 0.7 eV: N(523.15 K)/N(473.15 K) = 0.5787 (physics-check-values.md §1a, derived)
+        // i = 1, 2D: N ~ exp(E/kT) with E = E_d/3 (Venables, Spiller, Hanbuecken, Rep. Prog. Phys. 47, 399 (1984)),
+        // E_d = 0.7 eV, k = 8.617333262e-5 eV/K (CODATA 2018):
+        // N(523.15 K)/N(473.15 K) = exp((0.7/3)/k * (1/523.15 - 1/473.15)) = exp(-0.546952) = 0.578711.
         double ratio = density(523.15, 0.1, params(1, 2), GAAS_FILM) / density(473.15, 0.1, params(1, 2), GAAS_FILM);
-        assertEquals(0.5787, ratio, 2e-4);
+        double exact = Math.exp(0.7 / 3 / 8.617333262e-5 * (1 / 523.15 - 1 / 473.15));
+        assertEquals(0.578711, exact, 1e-6, "the arithmetic above");
+        assertEquals(exact, ratio, 1e-9 * exact);
     }
 
     @Test
@@ -173,6 +185,12 @@ class IslandNucleationModelTest extends GrowthModelContractTest {
     @Test
     void threeDimensionalBranchDiffersFrom2d() {
         assertNotEquals(density(500, 0.1, params(1, 2), GAAS_FILM), density(500, 0.1, params(1, 3), GAAS_FILM));
+        // With i = 1 (E_1 = 0) and the same eta, N3D/N2D = (F/D)^(1/3.5 - 1/3) (Venables et al. 1984 exponents),
+        // D = (1e13/4) exp(-0.7 eV/kT) per site per second (the model's default barrier and attempt rate).
+        double d = 1e13 / 4 * Math.exp(-0.7 / (KB * 500));
+        double expected = Math.pow(0.1 / d, 1 / 3.5 - 1 / 3.0);
+        assertEquals(expected, density(500, 0.1, params(1, 3), GAAS_FILM) / density(500, 0.1, params(1, 2), GAAS_FILM),
+                1e-9 * expected);
     }
 
     @Test
@@ -189,16 +207,20 @@ class IslandNucleationModelTest extends GrowthModelContractTest {
 
     @Test
     void hemisphereDropletDiametersMatchVolumeGoldenValues() {
-        // Hemisphere radii 48.4 nm (2 ML, 1e8 cm^-2), 17.8 nm (1 ML, 1e9), 8.3 nm (1 ML, 1e10) with liquid Ga
-        // 5.265e22 cm^-3 on GaAs(001) sites (physics-check-values.md §2a, derived)
-        assertEquals(2 * 48.4, IslandNucleationModel.dropletBaseDiameterNm(2, 1e8, GAAS_GA, 90).orElseThrow(), 0.1);
-        assertEquals(2 * 17.8, IslandNucleationModel.dropletBaseDiameterNm(1, 1e9, GAAS_GA, 90).orElseThrow(), 0.1);
-        assertEquals(2 * 8.3, IslandNucleationModel.dropletBaseDiameterNm(1, 1e10, GAAS_GA, 90).orElseThrow(), 0.1);
+        // Atoms per droplet = theta N0 / N_d; volume V = atoms / rho; hemisphere V = (2/3) pi r^3. With the
+        // surface above (N0 = 6.258e14 cm^-2 from a = 5.65325 A, Vurgaftman et al., J. Appl. Phys. 89, 5815 (2001);
+        // liquid Ga rho = 52.65 nm^-3 from 6.095 g/cm^3, CRC Handbook, from memory):
+        //   2 ML, 1e8 cm^-2: 1.2516e7 atoms, V = 2.37721e5 nm^3, r = (3V/2pi)^(1/3) = 48.4176 nm, d = 96.8351 nm;
+        //   1 ML, 1e9: 6.258e5 atoms, V = 1.18860e4 nm^3, d = 35.6744 nm;
+        //   1 ML, 1e10: 6.258e4 atoms, V = 1.18860e3 nm^3, d = 16.5586 nm.
+        assertEquals(96.83511, IslandNucleationModel.dropletBaseDiameterNm(2, 1e8, GAAS_GA, 90).orElseThrow(), 1e-6 * 96.8);
+        assertEquals(35.67436, IslandNucleationModel.dropletBaseDiameterNm(1, 1e9, GAAS_GA, 90).orElseThrow(), 1e-6 * 35.7);
+        assertEquals(16.55857, IslandNucleationModel.dropletBaseDiameterNm(1, 1e10, GAAS_GA, 90).orElseThrow(), 1e-6 * 16.6);
     }
 
     @Test
     void smallerContactAngleSpreadsTheDroplet() {
-        // a contact angle below 90° gives a larger base radius than the hemisphere (physics-check-values.md §2a)
+        // a contact angle below 90° gives a larger base radius than the hemisphere (spherical-cap geometry)
         double hemisphere = IslandNucleationModel.dropletBaseDiameterNm(2, 1e8, GAAS_GA, 90).orElseThrow();
         double flatter = IslandNucleationModel.dropletBaseDiameterNm(2, 1e8, GAAS_GA, 60).orElseThrow();
         assertTrue(flatter > hemisphere);

@@ -17,8 +17,10 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Contract cases plus golden values for {@link StepFlowModel}. Check values come from the researched physics
- * check values (§3; their original sources are named beside each value); each assertion names its source.
+ * Contract cases plus golden values for {@link StepFlowModel}. Each check value names its primary source beside
+ * it and shows the arithmetic of any derived number. The step-flow criterion is that of Burton, Cabrera, Frank,
+ * Phil. Trans. R. Soc. A 243, 299 (1951) (volume and page from memory): step flow when adatoms reach a step
+ * before they meet each other, i.e. the nucleation length exceeds the terrace width.
  */
 class StepFlowModelTest extends GrowthModelContractTest {
 
@@ -61,40 +63,49 @@ class StepFlowModelTest extends GrowthModelContractTest {
 
     @Test
     void terraceWidthsOnGaAs001MatchGoldenValues() {
-        // w = h/tan(α), h = 0.28266 nm: 0.1° 161.95, 0.5° 32.39, 1° 16.19, 2° 8.09, 4° 4.04 nm (§3, derived)
+        // w = h/tan(α) for monolayer steps of height h = a/2 = 0.282663 nm (a = 5.65325 A, Vurgaftman et al.,
+        // J. Appl. Phys. 89, 5815 (2001)): 0.1° 0.282663/1.745331e-3 = 161.9538 nm; 0.5° /8.726867e-3 = 32.38997;
+        // 1° /1.745506e-2 = 16.19375; 2° /3.492077e-2 = 8.094409; 4° /6.992681e-2 = 4.042269 nm.
         double h = GAAS.monolayerHeightNm();
-        assertEquals(161.95, StepFlowModel.terraceWidthNm(0.1, h).orElseThrow(), 0.01);
-        assertEquals(32.39, StepFlowModel.terraceWidthNm(0.5, h).orElseThrow(), 0.01);
-        assertEquals(16.19, StepFlowModel.terraceWidthNm(1.0, h).orElseThrow(), 0.01);
-        assertEquals(8.09, StepFlowModel.terraceWidthNm(2.0, h).orElseThrow(), 0.01);
-        assertEquals(4.04, StepFlowModel.terraceWidthNm(-4.0, h).orElseThrow(), 0.01);
+        assertEquals(161.9538, StepFlowModel.terraceWidthNm(0.1, h).orElseThrow(), 1e-6 * 161.95);
+        assertEquals(32.38997, StepFlowModel.terraceWidthNm(0.5, h).orElseThrow(), 1e-6 * 32.39);
+        assertEquals(16.19375, StepFlowModel.terraceWidthNm(1.0, h).orElseThrow(), 1e-6 * 16.19);
+        assertEquals(8.094409, StepFlowModel.terraceWidthNm(2.0, h).orElseThrow(), 1e-6 * 8.09);
+        assertEquals(4.042269, StepFlowModel.terraceWidthNm(-4.0, h).orElseThrow(), 1e-6 * 4.04);
         assertTrue(StepFlowModel.terraceWidthNm(0.0, h).isEmpty());
         assertThrows(IllegalArgumentException.class, () -> StepFlowModel.terraceWidthNm(90, h));
     }
 
     @Test
     void nucleationLengthsMatchGoldenValues() {
-        // eta = 0.25, i = 1: D/F = 1e6, 1e8, 1e9 -> l = 8.0, 17.2, 25.3 nm on GaAs(001) (§1a/§3, derived)
+        // l = N^(-1/2) with N = eta N0 (F/D)^(1/3) (i = 1, 2D islands; Venables, Spiller, Hanbuecken, Rep. Prog.
+        // Phys. 47, 399 (1984); eta = 0.25, Bales & Chrzan, Phys. Rev. B 50, 6057 (1994), value from memory),
+        // N0 = 6.258e14 cm^-2: D/F = 1e6 -> N = 1.5645e12 cm^-2, l = 1e7/sqrt(N) = 7.994885 nm; 1e8 -> 17.22446 nm;
+        // 1e9 -> 25.28205 nm.
         NucleationLaw law = NucleationLaw.from(defaults, NucleationLaw.ALPHA_2D);
         double[] ratios = {1e6, 1e8, 1e9};
-        double[] expected = {8.0, 17.2, 25.3};
+        double[] expected = {7.994885, 17.22446, 25.28205};
         for (int k = 0; k < 3; k++) {
             double l = StepFlowModel.nucleationLengthNm(law, 1.0, temperatureForHopRatio(ratios[k]), 0,
                     GAAS.sitesPerCm2());
-            assertEquals(expected[k], l, 0.05, "l at D/F = " + ratios[k]);
+            assertEquals(expected[k], l, 1e-6 * expected[k], "l at D/F = " + ratios[k]);
         }
     }
 
     @Test
     void oneDegreeMiscutAtHopRatio1e8IsJustAtTheTransition() {
-        // l = 17.2 nm against w(1°) = 16.2 nm: "just at the transition" (§3, BCF criterion l ≈ w)
+        // l = 17.22 nm against w(1°) = 16.19 nm: just above the transition (BCF criterion l = w)
         double t = temperatureForHopRatio(1e8);
         double p = stepFlowProbability(conditions(t, 1.0, 1.0), defaults);
         assertTrue(p > 0.5 && p < 0.6, "P(step-flow) = " + p);
         StepFlowModel.Onset onset = StepFlowModel.transitionTemperature(1.0, 1.0, 0, GAAS, defaults);
         assertEquals(StepFlowModel.Onset.Status.FOUND, onset.status());
-        // l grows only as exp(-E_d/(6kT)), so l/w = 1.064 at T puts T* about 30 K lower (774 K against 802 K)
-        assertTrue(onset.temperatureK() < t && onset.temperatureK() > t - 40, "T* = " + onset.temperatureK());
+        // l grows only as exp(-E_d/(6kT)), so l/w = 1.064 at T puts T* about 30 K lower. Closed form: l = w gives
+        // D/F = (w^2 eta N0)^3 = ((16.19375e-7 cm)^2 * 0.25 * 6.258e14)^3 = 6.703e7, and with D = (nu0/4) exp(-E_d/kT),
+        // T* = E_d / (k ln(nu0/4 / (F (w^2 eta N0)^3))) = 0.7 / (8.617333262e-5 * ln(2.5e12 / 6.703e7)) = 773.866 K
+        // (against T = 802.158 K for D/F = 1e8).
+        assertEquals(802.158, t, 1e-3);
+        assertEquals(773.866, onset.temperatureK(), 1e-3, "T* by the closed form");
     }
 
     @Test
@@ -121,6 +132,13 @@ class StepFlowModelTest extends GrowthModelContractTest {
         assertTrue(t2 < t1 && t3 < t2, "miscut 1°, 2°, 3°: " + t1 + ", " + t2 + ", " + t3);
         double slow = StepFlowModel.transitionTemperature(0.1, 2.0, 0, GAAS, defaults).temperatureK();
         assertTrue(slow < t2, "lower rate: " + slow + " against " + t2);
+        // Exact values by the closed form of oneDegreeMiscutAtHopRatio1e8IsJustAtTheTransition,
+        // T* = E_d / (k ln(nu0/4 / (F (w^2 eta N0)^3))), w = h/tan(miscut):
+        // F = 0.5 ML/s: 1° 725.930 K, 2° 529.171 K, 3° 456.702 K; F = 0.1 ML/s, 2°: 478.956 K.
+        assertEquals(725.930, t1, 1e-3);
+        assertEquals(529.171, t2, 1e-3);
+        assertEquals(456.702, t3, 1e-3);
+        assertEquals(478.956, slow, 1e-3);
     }
 
     @Test

@@ -2,6 +2,7 @@ package dev.terrace.core;
 
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
+import dev.terrace.core.io.SafeFiles;
 import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
@@ -17,7 +18,8 @@ import java.util.Objects;
  *
  * @param campaign the campaign; never null
  * @param runLog   its runs; never null
- * @param warnings warnings from both files, in file order; never null
+ * @param warnings warnings from both files, in file order, then those of {@link CampaignConsistency};
+ *                 never null
  * @since 0.1
  */
 public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> warnings) {
@@ -27,6 +29,16 @@ public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> 
         Objects.requireNonNull(campaign);
         Objects.requireNonNull(runLog);
         warnings = List.copyOf(warnings);
+    }
+
+    /**
+     * The files this campaign was read from, which no output may replace.
+     *
+     * @return the campaign file and the run log; never null
+     */
+    public List<SafeFiles.Input> inputs() {
+        return List.of(new SafeFiles.Input(campaign.file(), "campaign file"),
+                new SafeFiles.Input(runLog.file(), "run log"));
     }
 
     /**
@@ -44,6 +56,7 @@ public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> 
         RunLog log = RunLogReader.read(r.campaign());
         List<Diagnostic> warnings = new ArrayList<>(r.warnings());
         warnings.addAll(log.warnings());
+        warnings.addAll(CampaignConsistency.warnings(r.campaign(), log, registry));
         return new LoadedCampaign(r.campaign(), log, warnings);
     }
 }

@@ -17,10 +17,29 @@ import java.util.Objects;
  * @param source       where the default and bounds come from (paper, handbook, or "no general value
  *                     published"); never blank
  * @param description  one line saying what the parameter means
+ * @param meaning      the physical quantity the parameter stands for when other models may use the same
+ *                     one, as a shared key (lower case with underscores, for example
+ *                     {@code droplet_contact_angle}); empty when the parameter belongs to this model
+ *                     alone. Parameters of the models of one campaign that declare the same meaning are
+ *                     one parameter: the fit determines it once (in the first model, in chain order,
+ *                     whose runs determine it) and every model predicts with that value. Parameters that
+ *                     share a meaning must share the unit and the scale; a plugin should reuse the keys
+ *                     listed in {@link #MEANING_KEYS} where they fit.
  * @since 0.1
  */
 public record ModelParameter(String name, String unit, double defaultValue, double min, double max,
-                             List<Double> choices, boolean logScale, String source, String description) {
+                             List<Double> choices, boolean logScale, String source, String description,
+                             String meaning) {
+
+    /**
+     * Shared meanings used by the bundled plugins: the contact angle of a liquid metal droplet on the
+     * substrate (degrees), and the surface diffusion barrier (eV) and attempt frequency (Hz) of a
+     * deposited adatom.
+     *
+     * @since 0.2
+     */
+    public static final List<String> MEANING_KEYS = List.of("droplet_contact_angle", "adatom_diffusion_barrier",
+            "adatom_attempt_frequency");
 
     /** Checks the invariants. */
     public ModelParameter {
@@ -28,6 +47,11 @@ public record ModelParameter(String name, String unit, double defaultValue, doub
         Objects.requireNonNull(unit, "unit");
         Objects.requireNonNull(source, "source");
         Objects.requireNonNull(description, "description");
+        Objects.requireNonNull(meaning, "meaning");
+        if (!meaning.isEmpty() && !meaning.matches("[a-z][a-z0-9_]*")) {
+            throw new IllegalArgumentException("parameter " + name + ": meaning '" + meaning
+                    + "' must be lower case letters, digits and underscores");
+        }
         choices = List.copyOf(choices);
         if (name.isBlank()) {
             throw new IllegalArgumentException("parameter name is blank");
@@ -45,6 +69,30 @@ public record ModelParameter(String name, String unit, double defaultValue, doub
         if (!choices.isEmpty() && !choices.contains(defaultValue)) {
             throw new IllegalArgumentException("parameter " + name + ": default is not one of its choices");
         }
+    }
+
+    /**
+     * A parameter of this model alone (no shared meaning).
+     *
+     * @since 0.1
+     */
+    public ModelParameter(String name, String unit, double defaultValue, double min, double max,
+                          List<Double> choices, boolean logScale, String source, String description) {
+        this(name, unit, defaultValue, min, max, choices, logScale, source, description, "");
+    }
+
+    /**
+     * @param key the shared meaning (see {@link #meaning()})
+     * @return a copy of this parameter that declares the meaning; never null
+     * @since 0.2
+     */
+    public ModelParameter withMeaning(String key) {
+        return new ModelParameter(name, unit, defaultValue, min, max, choices, logScale, source, description, key);
+    }
+
+    /** @return true when the parameter declares a meaning shared with other models */
+    public boolean hasSharedMeaning() {
+        return !meaning.isEmpty();
     }
 
     /**

@@ -68,12 +68,14 @@ public record Prediction(Map<Role, Double> values, Map<Role, Map<String, Double>
     }
 
     /**
-     * A prediction outside a model's validity, with no values.
+     * A prediction for a recipe the model cannot apply to whatever its parameter values (see
+     * {@link Validity#notApplicable(String)}), with no values. For a reason that depends on the
+     * parameters, return the values with {@link Validity#outside(String)} instead.
      *
      * @param reason why the model does not apply
      * @return the prediction; never null
      */
     public static Prediction notApplicable(String reason) {
-        return new Prediction(Map.of(), Map.of(), Validity.outside(reason), List.of());
+        return new Prediction(Map.of(), Map.of(), Validity.notApplicable(reason), List.of());
     }
 }

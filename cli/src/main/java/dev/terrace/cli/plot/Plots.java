@@ -817,6 +817,9 @@ public final class Plots {
         return chart;
     }
 
+    /** Fixed prefix of the ids of an SVG's clip paths and gradients (see {@link #toSvg}). */
+    private static final String SVG_DEFS_PREFIX = "terrace";
+
     // ------------------------------------------------------------------ output
 
     /**
@@ -831,6 +834,9 @@ public final class Plots {
     public static String toSvg(JFreeChart chart, int w, int h) {
         checkSize(w, h);
         SVGGraphics2D g = new SVGGraphics2D(w, h);
+        // JFreeSVG prefixes clip-path and gradient ids with System.nanoTime() by default, so the same
+        // chart would give different bytes on every run; a fixed prefix keeps the output reproducible
+        g.setDefsKeyPrefix(SVG_DEFS_PREFIX);
         synchronized (Plots.class) {
             // JFreeChart's old workaround for rotated text draws it through TextLayout, which SVG
             // output turns into glyph outlines; switched off here, rotated labels stay searchable text
@@ -924,6 +930,28 @@ public final class Plots {
             saveSvg(chart, file, w, h, replace);
         } else {
             throw new IllegalArgumentException("chart files end in .png or .svg, not " + file.getFileName());
+        }
+    }
+
+    /**
+     * Writes a chart as PNG or SVG through a checked target, chosen by the file name's ending
+     * (.png or .svg, any case).
+     *
+     * @param chart  the chart
+     * @param target where and how to write
+     * @param w      width in pixels
+     * @param h      height in pixels
+     * @throws IllegalArgumentException for another ending
+     * @throws IOException              on failures (no partial file is left)
+     */
+    public static void save(JFreeChart chart, SafeFiles.Target target, int w, int h) throws IOException {
+        String name = target.path().getFileName().toString().toLowerCase(Locale.ROOT);
+        if (name.endsWith(".png")) {
+            target.write(pngBytes(chart, w, h));
+        } else if (name.endsWith(".svg")) {
+            target.write(toSvg(chart, w, h));
+        } else {
+            throw new IllegalArgumentException("chart files end in .png or .svg, not " + target.path().getFileName());
         }
     }
 

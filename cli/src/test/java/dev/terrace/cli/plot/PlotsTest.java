@@ -65,6 +65,18 @@ class PlotsTest {
     }
 
     @Test
+    void theSameChartGivesTheSameSvgBytesTwice() throws Exception {
+        // Reproducible output (common practice for build artefacts): no time-derived ids in the SVG.
+        JFreeChart first = Plots.windowMap(map, lc.runLog().runs(), proposals, lc.campaign());
+        String a = Plots.toSvg(first, 800, 640);
+        Thread.sleep(2);
+        JFreeChart second = Plots.windowMap(map, lc.runLog().runs(), proposals, lc.campaign());
+        String b = Plots.toSvg(second, 800, 640);
+        assertTrue(a.contains("clip-path"), "the map clips its layers, so ids are present to compare");
+        assertEquals(a, b);
+    }
+
+    @Test
     void windowMapRendersToPngOfTheAskedSizeAndToSvgWithAxisLabelsAndUnits() throws Exception {
         JFreeChart chart = Plots.windowMap(map, lc.runLog().runs(), proposals, lc.campaign());
         BufferedImage png = ImageIO.read(new ByteArrayInputStream(Plots.pngBytes(chart, 800, 640)));

@@ -3,6 +3,7 @@ package dev.terrace.core.campaign;
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.DidYouMean;
 import dev.terrace.core.InputException;
+import dev.terrace.core.io.InputFiles;
 import dev.terrace.core.material.Compound;
 import dev.terrace.core.material.Materials;
 import dev.terrace.core.material.Metal;
@@ -34,7 +35,6 @@ import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -94,10 +94,11 @@ public final class CampaignReader {
     public static Result read(Path file, Set<String> knownModels) throws InputException, IOException {
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            byte[] bytes = InputFiles.read(file, InputFiles.CAMPAIGN);
+            text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "campaign file not found"));
-        } catch (java.nio.charset.MalformedInputException e) {
+        } catch (java.nio.charset.CharacterCodingException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "campaign file is not UTF-8 text"));
         }
         return parse(file, new StringReader(text), knownModels);
@@ -151,17 +152,33 @@ public final class CampaignReader {
         LoaderOptions opts = new LoaderOptions();
         opts.setAllowDuplicateKeys(true); // duplicates are reported by us, with both positions
         opts.setMaxAliasesForCollections(10);
+        // the same bound as the file size, so text handed to parse() directly is bounded too
+        opts.setCodePointLimit((int) InputFiles.MAX_CAMPAIGN_BYTES);
         Node root;
+        String text;
         try {
-            root = new Yaml(opts).compose(in);
+            text = readAll(in);
+        } catch (IOException e) {
+            error(0, 0, "campaign file could not be read: " + e.getMessage());
+            return null;
+        }
+        try {
+            root = new Yaml(opts).compose(new StringReader(text));
         } catch (MarkedYAMLException e) {
             Mark m = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
             String what = e.getProblem() != null ? e.getProblem() : e.getMessage();
-            error(m == null ? 0 : m.getLine() + 1, m == null ? 0 : m.getColumn() + 1,
-                    "not valid YAML: " + what);
+            int[] at = m != null ? new int[] {m.getLine() + 1, m.getColumn() + 1} : YamlErrorPosition.of(text, e, opts);
+            error(at[0], at[1], "not valid YAML: " + what);
             return null;
         } catch (YAMLException e) {
-            error(0, 0, "not valid YAML: " + e.getMessage());
+            // a disallowed character, or a loader limit (nesting depth, aliases): the library gives
+            // no line, so find it
+            int[] at = YamlErrorPosition.of(text, e, opts);
+            String what = e instanceof org.yaml.snakeyaml.reader.ReaderException re
+                    ? String.format("character U+%04X is not allowed in YAML text (control characters and"
+                    + " non-characters must be removed)", re.getCodePoint())
+                    : e.getMessage();
+            error(at[0], at[1], "not valid YAML: " + what);
             return null;
         }
         if (root == null) {
@@ -214,8 +231,16 @@ public final class CampaignReader {
         }
         List<Target> targets = top.containsKey("targets") ? targets(top.get("targets").getValueNode(), outcomes)
                 : List.of();
+        Set<String> declared = new LinkedHashSet<>();
+        if (pt != null && pt.getValueNode() instanceof MappingNode) {
+            for (NodeTuple t : ((MappingNode) pt.getValueNode()).getValue()) {
+                if (t.getKeyNode() instanceof ScalarNode) {
+                    declared.add(((ScalarNode) t.getKeyNode()).getValue());
+                }
+            }
+        }
         List<LinearLimit> limits = top.containsKey("limits")
-                ? limits(top.get("limits").getValueNode(), parameters) : List.of();
+                ? limits(top.get("limits").getValueNode(), parameters, declared) : List.of();
         List<String> models = top.containsKey("models") ? models(top.get("models").getValueNode()) : List.of();
         String runs = Optional.ofNullable(scalarText(top, "runs", root, false)).orElse(DEFAULT_RUNS);
         if (runs.isBlank()) {
@@ -499,7 +524,12 @@ public final class CampaignReader {
         return out;
     }
 
-    private List<LinearLimit> limits(Node n, List<ParameterSpec> parameters) {
+    /**
+     * Reads the limits. {@code declared} holds every parameter name written in the campaign, also
+     * those whose declaration had an error: a limit naming one of those is left out quietly, as the
+     * declaration's own error already says what to fix (one cause, one message).
+     */
+    private List<LinearLimit> limits(Node n, List<ParameterSpec> parameters, Set<String> declared) {
         List<LinearLimit> out = new ArrayList<>();
         if (!(n instanceof SequenceNode)) {
             error(n, "expected a list of limits such as '- anneal_temp >= substrate_temp'");
@@ -525,7 +555,9 @@ public final class CampaignReader {
             boolean ok = true;
             for (String name : limit.coefficients().keySet()) {
                 ParameterSpec p = byName.get(name);
-                if (p == null) {
+                if (p == null && declared.contains(name)) {
+                    ok = false; // the parameter's declaration is wrong and reported there
+                } else if (p == null) {
                     int at = text.indexOf(name);
                     error(item.getStartMark().getLine() + 1, item.getStartMark().getColumn() + 1 + Math.max(at, 0),
                             "limit names unknown parameter '" + name + "'" + hint(name, byName.keySet()));
@@ -548,24 +580,47 @@ public final class CampaignReader {
         if (limits.isEmpty()) {
             return;
         }
-        List<String> names = new ArrayList<>(byName.keySet());
-        names.removeIf(k -> byName.get(k).isCategorical());
         boolean anyAlone = false;
         for (LinearLimit l : limits) {
-            if (!feasible(List.of(l), names, byName)) {
+            if (!feasibleAlone(l, byName)) {
                 error(l.position(), "no setting inside the parameter boxes satisfies the limit '" + l.text()
                         + "'; widen the boxes or correct the limit");
                 anyAlone = true;
             }
         }
-        if (!anyAlone && limits.size() > 1 && !feasible(limits, names, byName)) {
+        if (!anyAlone && limits.size() > 1 && !feasible(limits, byName)) {
             error(limits.get(0).position(), "the limits cannot all hold at once inside the parameter boxes: "
                     + limits.stream().map(LinearLimit::text).collect(Collectors.joining("; ")));
         }
     }
 
-    private static boolean feasible(List<LinearLimit> limits, List<String> names, Map<String, ParameterSpec> byName) {
+    /**
+     * Whether some point of the box satisfies one limit {@code a·x + c >= 0}: its largest value over
+     * the box is {@code c + Σ max(a_i min_i, a_i max_i)} (time and memory linear in the terms).
+     */
+    static boolean feasibleAlone(LinearLimit l, Map<String, ParameterSpec> byName) {
+        double best = l.constant();
+        double scale = Math.abs(l.constant());
+        for (Map.Entry<String, Double> t : l.coefficients().entrySet()) {
+            ParameterSpec p = byName.get(t.getKey());
+            double a = t.getValue();
+            double v = Math.max(a * p.min(), a * p.max());
+            best += v;
+            scale = Math.max(scale, Math.abs(v));
+        }
+        return best >= -1e-9 * Math.max(scale, 1);
+    }
+
+    /**
+     * Whether some point of the box satisfies every limit at once (simplex). Only the settings the
+     * limits name enter the programme, so its size follows the limits, not the parameter count.
+     */
+    static boolean feasible(List<LinearLimit> limits, Map<String, ParameterSpec> byName) {
+        List<String> names = limits.stream().flatMap(l -> l.coefficients().keySet().stream()).distinct().toList();
         int d = names.size();
+        if (d == 0) {
+            return limits.stream().allMatch(l -> l.constant() >= 0);
+        }
         List<LinearConstraint> cs = new ArrayList<>();
         for (int i = 0; i < d; i++) {
             double[] e = new double[d];
@@ -805,6 +860,15 @@ public final class CampaignReader {
 
     private void error(SourcePosition p, String message) {
         error(p.line(), p.column(), message);
+    }
+
+    private static String readAll(Reader in) throws IOException {
+        StringBuilder sb = new StringBuilder();
+        char[] buf = new char[8192];
+        for (int n; (n = in.read(buf)) >= 0; ) {
+            sb.append(buf, 0, n);
+        }
+        return sb.toString();
     }
 
     private void error(int line, int column, String message) {

@@ -118,6 +118,7 @@ final class LimitParser {
                 pos++;
                 skipSpace();
                 String name = name();
+                rejectProduct(name);
                 coef.merge(name, sign * n, Double::sum);
             } else {
                 constant[0] += sign * n;
@@ -129,11 +130,26 @@ final class LimitParser {
             if (pos < text.length() && text.charAt(pos) == '*') {
                 pos++;
                 skipSpace();
+                if (pos < text.length() && (Character.isLetter(text.charAt(pos)) || text.charAt(pos) == '_')) {
+                    int at = pos;
+                    throw new LimitSyntaxException("limits must be linear: '" + name + " * " + name()
+                            + "' multiplies two settings; write each setting times a number", at);
+                }
                 n = number();
+                rejectProduct(name);
             }
             coef.merge(name, sign * n, Double::sum);
         } else {
             throw new LimitSyntaxException("expected a number or a parameter name, found '" + c + "'", pos);
+        }
+    }
+
+    /** Refuses a second {@code *} after a term that already names a setting. */
+    private void rejectProduct(String name) throws LimitSyntaxException {
+        skipSpace();
+        if (pos < text.length() && text.charAt(pos) == '*') {
+            throw new LimitSyntaxException("limits must be linear: '" + name + "' is multiplied again;"
+                    + " write each setting times one number", pos);
         }
     }
 

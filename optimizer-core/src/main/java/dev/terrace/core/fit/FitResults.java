@@ -51,6 +51,41 @@ public final class FitResults {
     public record Excluded(String runId, String reason) {
     }
 
+    /** What a model's fit did with one run. */
+    public enum RunUse {
+        /** Its measured outcomes entered the fit. */
+        USED,
+        /** It entered the fit and at least one outcome was censored ({@code <X} or {@code >X}): Tobit terms. */
+        CENSORED,
+        /** It was left out; the status says why. */
+        EXCLUDED;
+
+        /** @return the lower-case word used in tables and JSON */
+        public String word() {
+            return name().toLowerCase(java.util.Locale.ROOT);
+        }
+    }
+
+    /**
+     * The status of one run in one model's fit.
+     *
+     * @param runId  the run
+     * @param use    used, censored or excluded
+     * @param reason why excluded; for censored runs which cells were censored; for used runs an
+     *               optional remark (empty when none); never null
+     */
+    public record RunStatus(String runId, RunUse use, String reason) {
+        /** Checks the invariants. */
+        public RunStatus {
+            Objects.requireNonNull(runId);
+            Objects.requireNonNull(use);
+            Objects.requireNonNull(reason);
+            if (use == RunUse.EXCLUDED && reason.isBlank()) {
+                throw new IllegalArgumentException("excluded run " + runId + " needs a reason");
+            }
+        }
+    }
+
     /**
      * One combination of discrete choices, fitted and scored.
      *
@@ -78,9 +113,11 @@ public final class FitResults {
      * @param residual  measured - predicted on the outcome's scale (log10 for log outcomes); for classes
      *                  -ln of the probability given to the observed class
      * @param observedClass the observed class of a class outcome, else null
+     * @param censored  for a censored value ({@code measured} is then the bound): {@code "<"} or
+     *                  {@code ">"}; else null. Its residual is bound − predicted.
      */
     public record Residual(String runId, String outcome, double measured, double predicted, double residual,
-                           String observedClass) {
+                           String observedClass, String censored) {
     }
 
     /**
@@ -88,12 +125,15 @@ public final class FitResults {
      *
      * @param outcome  outcome column
      * @param scale    "log10", "linear" or "class"
-     * @param n        number of runs that measured it
-     * @param rmse     root-mean-square residual on the scale (NaN for classes)
+     * @param n        number of runs that measured it (censored ones included)
+     * @param rmse     root-mean-square residual on the scale over the measured values (NaN for classes)
      * @param logLoss  mean -ln p(observed class) (NaN for numeric)
      * @param accuracy fraction of runs whose most likely class was observed (NaN for numeric)
+     * @param censored how many of the {@code n} values were censored (entered through Tobit terms)
+     * @param sigma    fitted scatter on the scale (NaN for classes)
      */
-    public record OutcomeFit(String outcome, String scale, int n, double rmse, double logLoss, double accuracy) {
+    public record OutcomeFit(String outcome, String scale, int n, double rmse, double logLoss, double accuracy,
+                             int censored, double sigma) {
     }
 
     /**
@@ -112,14 +152,16 @@ public final class FitResults {
      * @param values       the parameter values to predict with
      * @param verdict      plain-words summary lines
      * @param message      why nothing could be fitted, or empty
+     * @param runs         every run of the log with its status in this fit, in log order
      */
     public record ModelFit(String id, int runsUsed, List<Excluded> excluded, List<Estimate> estimates,
                            Map<String, Double> selected, List<Candidate> candidates, List<OutcomeFit> outcomes,
                            List<Residual> residuals, List<String> correlationNames, double[][] correlations,
-                           ParameterValues values, List<String> verdict, String message) {
+                           ParameterValues values, List<String> verdict, String message, List<RunStatus> runs) {
         /** Copies the contents. */
         public ModelFit {
             excluded = List.copyOf(excluded);
+            runs = List.copyOf(runs);
             estimates = List.copyOf(estimates);
             selected = Map.copyOf(selected);
             candidates = List.copyOf(candidates);
@@ -134,6 +176,30 @@ public final class FitResults {
             verdict = List.copyOf(verdict);
             Objects.requireNonNull(values);
             Objects.requireNonNull(message);
+        }
+
+        /**
+         * @param use a status
+         * @return how many runs have it
+         */
+        public int count(RunUse use) {
+            return (int) runs.stream().filter(r -> r.use() == use).count();
+        }
+
+        /**
+         * @param paramName a parameter
+         * @param value     its new value
+         * @param estimate  its new estimate
+         * @return a copy with that parameter's value and estimate replaced (a shared parameter fitted in
+         *         a later model of the chain); never null
+         */
+        public ModelFit withParameter(String paramName, double value, Estimate estimate) {
+            List<Estimate> est = new java.util.ArrayList<>();
+            for (Estimate e : estimates) {
+                est.add(e.name().equals(paramName) ? estimate : e);
+            }
+            return new ModelFit(id, runsUsed, excluded, est, selected, candidates, outcomes, residuals,
+                    correlationNames, correlations, values.with(paramName, value), verdict, message, runs);
         }
 
         /** @return true when at least one parameter was fitted */

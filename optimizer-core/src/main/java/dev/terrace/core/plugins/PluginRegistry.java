@@ -142,6 +142,11 @@ public final class PluginRegistry {
                     continue;
                 }
                 for (Path jar : jars) {
+                    Optional<String> unreadable = unreadableJar(jar);
+                    if (unreadable.isPresent()) {
+                        problems.add(new PluginProblem(false, jar.toString(), unreadable.get()));
+                        continue;
+                    }
                     URLClassLoader loader;
                     try {
                         loader = new URLClassLoader(new URL[] {jar.toUri().toURL()}, parent);
@@ -172,6 +177,25 @@ public final class PluginRegistry {
                 problems.add(new PluginProblem(true, c.get(0).source(), sb.toString()));
             }
             return new PluginRegistry(byId, problems);
+        }
+
+        /**
+         * Why a plugin jar cannot be used, or empty when it is a readable jar that declares a
+         * growth-model service. A class loader skips a corrupt jar without a word, so it is opened
+         * here first.
+         */
+        static Optional<String> unreadableJar(Path jar) {
+            String entry = "META-INF/services/" + GrowthModel.class.getName();
+            try (java.util.jar.JarFile jf = new java.util.jar.JarFile(jar.toFile())) {
+                if (jf.getEntry(entry) == null) {
+                    return Optional.of("plugin jar " + jar + " declares no growth model (it has no " + entry
+                            + " entry); it is not used");
+                }
+                return Optional.empty();
+            } catch (IOException | SecurityException e) {
+                return Optional.of("plugin jar " + jar + " cannot be read as a jar (" + rootMessage(e)
+                        + "); replace it with a complete copy or remove it from the folder");
+            }
         }
 
         private static void load(ServiceLoader<GrowthModel> sl, ClassLoader only, List<LoadedModel> found,

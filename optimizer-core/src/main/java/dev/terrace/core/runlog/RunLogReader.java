@@ -3,6 +3,7 @@ package dev.terrace.core.runlog;
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.DidYouMean;
 import dev.terrace.core.InputException;
+import dev.terrace.core.io.InputFiles;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
 import dev.terrace.core.campaign.Scale;
@@ -21,7 +22,6 @@ import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AccessDeniedException;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -123,13 +123,9 @@ public final class RunLogReader {
     public static RunLog read(Campaign campaign, Path file) throws IOException, InputException {
         Objects.requireNonNull(campaign, "campaign");
         Objects.requireNonNull(file, "file");
-        if (Files.isDirectory(file)) {
-            throw new InputException(Diagnostic.error(file, 0, 0,
-                    "the run log is a folder, expected a CSV file"));
-        }
         byte[] bytes;
         try {
-            bytes = Files.readAllBytes(file);
+            bytes = InputFiles.read(file, InputFiles.RUN_LOG);
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "run log not found; the campaign "
                     + campaign.file() + " expects its runs in this CSV file (create it with a header row"
@@ -181,13 +177,9 @@ public final class RunLogReader {
         Objects.requireNonNull(campaign, "campaign");
         String text;
         try {
-            byte[] bytes = Files.readAllBytes(file);
-            text = java.nio.charset.StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes))
-                    .toString();
+            text = decodeUtf8(file, InputFiles.read(file, InputFiles.CANDIDATES));
         } catch (NoSuchFileException e) {
             throw new InputException(Diagnostic.error(file, 0, 0, "candidate file not found"));
-        } catch (java.nio.charset.CharacterCodingException e) {
-            throw new InputException(Diagnostic.error(file, 0, 0, "candidate file is not UTF-8 text"));
         }
         return parse(campaign, file, text, true);
     }
@@ -215,8 +207,22 @@ public final class RunLogReader {
                     + " such as: " + RunLogWriter.headerLine(campaign)));
         } else {
             CsvTokenizer.Row headerRow = tokens.rows().get(0);
-            List<Column> header = readHeader(campaign, file, headerRow, diags, candidates);
-            if (!headerRow.broken()) {
+            List<Diagnostic> headerDiags = new ArrayList<>();
+            List<Column> header = readHeader(campaign, file, headerRow, headerDiags, candidates);
+            boolean foreign = header.stream().allMatch(c -> c.kind() == Kind.SKIPPED);
+            if (foreign) {
+                // nothing in the first line is a column of this campaign: one message, a short escaped
+                // excerpt, and no row errors (the file may be anything, and is not echoed)
+                String first = headerRow.cells().stream().map(CsvTokenizer.Cell::text)
+                        .reduce((a, b) -> a + "," + b).orElse("");
+                diags.add(Diagnostic.error(file, headerRow.line(), 1, "this file does not look like "
+                        + (candidates ? "a candidates table" : "a run log") + " of this campaign: its first line ('"
+                        + excerpt(first) + "') names none of the campaign's columns; expected a header such as: "
+                        + RunLogWriter.headerLine(campaign)));
+            } else {
+                diags.addAll(headerDiags);
+            }
+            if (!headerRow.broken() && !foreign) {
                 Map<String, Integer> firstLine = new HashMap<>();
                 int index = 0;
                 for (CsvTokenizer.Row row : tokens.rows().subList(1, tokens.rows().size())) {
@@ -353,6 +359,13 @@ public final class RunLogReader {
         for (int k = 0; k < header.size(); k++) {
             Column column = header.get(k);
             CsvTokenizer.Cell cell = cells.get(k);
+            int control = controlCharacter(cell.text(), column.kind() == Kind.NOTES);
+            if (control >= 0) {
+                error(diags, file, cell, "column '" + shown(column.name()) + "' holds the control character "
+                        + String.format(Locale.ROOT, "U+%04X", control) + " ('" + shown(cell.text())
+                        + "'); remove it: control characters can rewrite a terminal when printed");
+                continue;
+            }
             String t = cell.text().strip();
             switch (column.kind()) {
                 case RUN_ID:
@@ -635,6 +648,29 @@ public final class RunLogReader {
     }
 
     /** A cell's text made safe to quote in a one-line message: control characters escaped, long text cut. */
+    /**
+     * The first control character of a cell (C0, DEL or C1), or -1. Tab, carriage return and line
+     * feed are allowed in notes, where quoted text may span lines.
+     */
+    static int controlCharacter(String text, boolean notes) {
+        for (int k = 0; k < text.length(); k++) {
+            char c = text.charAt(k);
+            if (Character.isISOControl(c) && !(notes && (c == '\t' || c == '\n' || c == '\r'))) {
+                return c;
+            }
+        }
+        return -1;
+    }
+
+    /** At most {@value #EXCERPT_LENGTH} characters of a line from a file that may not be ours, escaped. */
+    private static String excerpt(String text) {
+        String t = text.length() > EXCERPT_LENGTH ? text.substring(0, EXCERPT_LENGTH) + "\u2026" : text;
+        return shown(t);
+    }
+
+    /** Characters of a foreign first line shown in an error (a project choice: enough to recognise it). */
+    private static final int EXCERPT_LENGTH = 24;
+
     static String shown(String text) {
         StringBuilder sb = new StringBuilder();
         int count = 0;

@@ -1,9 +1,6 @@
 package dev.terrace.core.surrogate;
 
 import dev.terrace.core.space.DesignPoint;
-import smile.math.blas.UPLO;
-import smile.math.matrix.Matrix;
-import smile.regression.GaussianProcessRegression;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -22,8 +19,8 @@ import java.util.SplittableRandom;
  * likelihood (type-II maximum likelihood, Rasmussen &amp; Williams 2006, <i>Gaussian Processes for
  * Machine Learning</i>, ch. 5) from several seeded starts; see {@link GpSettings} for the bounds
  * and for the subset rule on large data sets. The posterior (same book, Algorithm 2.1) is
- * evaluated by Smile's {@link GaussianProcessRegression} on a Cholesky factor built here with
- * progressive jitter.
+ * evaluated here on a Cholesky factor with progressive jitter, through the process's
+ * {@link dev.terrace.core.linalg.Algebra} backend (native LAPACK or pure Java).
  *
  * <p>Degenerate data never produce NaN: with one run the hyperparameters are the defaults of
  * {@link GpHyperparameters#defaults} and the residual scale is
@@ -37,7 +34,7 @@ import java.util.SplittableRandom;
  */
 public final class GaussianProcess {
 
-    /** Points per batched Smile query; bounds the m×m joint covariance Smile builds per chunk. */
+    /** Points per batched prediction; bounds the n×m cross-covariance built per chunk. */
     public static final int PREDICT_CHUNK = 256;
 
     /**
@@ -71,7 +68,8 @@ public final class GaussianProcess {
     private final GpKernel kernel;
     private final GpSettings settings;
     private final GpCholesky factor;
-    private final GaussianProcessRegression<double[]> smile;
+    /** (K + σn²I)⁻¹ z, the posterior weights (Rasmussen &amp; Williams 2006, Algorithm 2.1). */
+    private final double[] alpha;
     private final double standardisedLml;
     private final int evaluations;
 
@@ -94,8 +92,7 @@ public final class GaussianProcess {
             quad += z[i] * alpha[i];
         }
         this.standardisedLml = -0.5 * quad - factor.halfLogDet() - 0.5 * z.length * LOG_2PI;
-        this.smile = new GaussianProcessRegression<>(kernel, flat, alpha, hyper.noiseVariance() + factor.jitter(),
-                0.0, 1.0, factor.cholesky(), standardisedLml);
+        this.alpha = alpha;
         if (!Double.isFinite(standardisedLml)) {
             throw new IllegalStateException("log marginal likelihood is not finite");
         }
@@ -224,8 +221,9 @@ public final class GaussianProcess {
     }
 
     /**
-     * Posterior predictions at a batch of points, evaluated by Smile in chunks of
-     * {@value #PREDICT_CHUNK}.
+     * Posterior predictions at a batch of points, evaluated in chunks of {@value #PREDICT_CHUNK}:
+     * mean k*ᵀα and latent variance k(x, x) − ‖L⁻¹k*‖² (Rasmussen &amp; Williams 2006,
+     * Algorithm 2.1).
      *
      * @param x         points, with the same numbers of coordinates and levels as the runs
      * @param priorMean prior mean at each point when the GP was fitted with one (finite, same
@@ -244,10 +242,26 @@ public final class GaussianProcess {
             for (int i = 0; i < len; i++) {
                 q[i] = encodeChecked(x.get(start + i));
             }
-            GaussianProcessRegression<double[]>.JointPrediction jp = smile.query(q);
+            int n = z.length;
+            double[] ks = new double[n * len];
+            double[] mus = new double[len];
+            for (int j = 0; j < len; j++) {
+                double s = 0;
+                for (int i = 0; i < n; i++) {
+                    double kv = kernel.k(flat[i], q[j]);
+                    ks[i + j * n] = kv;
+                    s += kv * alpha[i];
+                }
+                mus[j] = s;
+            }
+            factor.lowerSolveInPlace(ks, len);
             for (int i = 0; i < len; i++) {
-                double mu = jp.mu[i];
-                double var = jp.cov.get(i, i);
+                double mu = mus[i];
+                double var = kernel.k(q[i], q[i]);
+                for (int r = 0; r < n; r++) {
+                    double v = ks[r + i * n];
+                    var -= v * v;
+                }
                 if (!Double.isFinite(mu) || Double.isNaN(var)) {
                     throw new IllegalStateException("GP prediction is not finite");
                 }
@@ -329,8 +343,7 @@ public final class GaussianProcess {
             a[n + j * n1] = l[j];
         }
         a[n + n * n1] = Math.sqrt(pivot);
-        Matrix m = new Matrix(n1, n1, n1, a).uplo(UPLO.LOWER);
-        return new GpCholesky(new Matrix.Cholesky(m), a, n1, factor.jitter());
+        return new GpCholesky(a, n1, factor.jitter());
     }
 
     /** @return the hyperparameters (variances in standardised units); never null */

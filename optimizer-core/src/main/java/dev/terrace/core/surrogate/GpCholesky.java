@@ -1,24 +1,20 @@
 package dev.terrace.core.surrogate;
 
-import smile.math.blas.LAPACK;
-import smile.math.blas.Layout;
-import smile.math.blas.UPLO;
-import smile.math.matrix.Matrix;
+import dev.terrace.core.linalg.Algebra;
 
 /**
- * Cholesky factor of a covariance matrix through Smile's LAPACK binding, with progressive jitter.
+ * Cholesky factor of a covariance matrix through the process's {@link Algebra} backend (native
+ * LAPACK or pure Java), with progressive jitter.
  *
- * <p>LAPACK {@code potrf} is called directly (rather than {@code Matrix.cholesky}, which logs an
- * error and throws on failure) so that a failed factorisation can be retried quietly with a
+ * <p>A failed factorisation is retried quietly with a
  * larger diagonal: 1e-10·σf² first, ×10 per retry, up to σf² (adding jitter of about 1e-10·σf²
  * when the Cholesky fails is common practice).
  *
- * @param cholesky the Smile factor of K + jitter·I, usable by Smile's GP
- * @param lower    the column-major array holding L in its lower triangle (shared with {@code cholesky})
+ * @param lower    the column-major array holding L in its lower triangle
  * @param n        matrix order
  * @param jitter   the diagonal added beyond the matrix given, 0 when none was needed
  */
-record GpCholesky(Matrix.Cholesky cholesky, double[] lower, int n, double jitter) {
+record GpCholesky(double[] lower, int n, double jitter) {
 
     /** First jitter, relative to the signal variance. */
     static final double JITTER_START = 1e-10;
@@ -45,10 +41,8 @@ record GpCholesky(Matrix.Cholesky cholesky, double[] lower, int n, double jitter
                     a[i + i * n] += jitter;
                 }
             }
-            int info = n == 0 ? 0 : LAPACK.engine.potrf(Layout.COL_MAJOR, UPLO.LOWER, n, a, n);
-            if (info == 0) {
-                Matrix m = new Matrix(n, n, n, a).uplo(UPLO.LOWER);
-                return new GpCholesky(new Matrix.Cholesky(m), a, n, jitter);
+            if (Algebra.current().cholesky(n, a)) {
+                return new GpCholesky(a, n, jitter);
             }
             jitter = jitter == 0 ? JITTER_START * signalVariance : jitter * JITTER_GROWTH;
             if (jitter > JITTER_LIMIT * signalVariance * (1 + 1e-9)) {
@@ -72,21 +66,20 @@ record GpCholesky(Matrix.Cholesky cholesky, double[] lower, int n, double jitter
      */
     double[] solve(double[] b) {
         double[] x = b.clone();
-        if (n > 0) {
-            LAPACK.engine.potrs(Layout.COL_MAJOR, UPLO.LOWER, n, 1, lower, n, x, n);
-        }
+        Algebra.current().choleskySolve(n, 1, lower, x);
         return x;
+    }
+
+    /**
+     * @param b n×m right-hand sides, column-major; replaced by L⁻¹ b
+     * @param m number of right-hand sides
+     */
+    void lowerSolveInPlace(double[] b, int m) {
+        Algebra.current().lowerSolve(n, m, lower, b);
     }
 
     /** @return (K + jitter·I)⁻¹, column-major n×n */
     double[] inverse() {
-        double[] x = new double[n * n];
-        for (int i = 0; i < n; i++) {
-            x[i + i * n] = 1;
-        }
-        if (n > 0) {
-            LAPACK.engine.potrs(Layout.COL_MAJOR, UPLO.LOWER, n, n, lower, n, x, n);
-        }
-        return x;
+        return Algebra.current().inverse(n, lower);
     }
 }

@@ -8,8 +8,10 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
- * Properties of {@link Acquisitions} derived from the closed forms (search-check-values §3.1,
- * "properties useful as property tests"), plus consistency properties of the window
+ * Properties of {@link Acquisitions} that follow from the closed form of expected improvement
+ * (Jones, Schonlau, Welch, J. Global Optim. 13, 455 (1998)) by differentiation: EI is at least
+ * max(f_min - mu, 0), dEI/dmu = -Phi(z), dEI/dsigma = phi(z) > 0, and
+ * EI(mu, sigma; f) = sigma EI(0, 1; (f - mu)/sigma); plus consistency properties of the window
  * probabilities that follow from the axioms of probability.
  */
 class AcquisitionsPropertyTest {
@@ -19,7 +21,7 @@ class AcquisitionsPropertyTest {
             @ForAll @DoubleRange(min = -10, max = 10) double mu,
             @ForAll @DoubleRange(min = 0, max = 10) double sigma,
             @ForAll @DoubleRange(min = -10, max = 10) double fMin) {
-        // §3.1: EI >= max(f_min - mu, 0) (Jensen's inequality on the convex max(., 0))
+        // From the closed form: EI >= max(f_min - mu, 0) (Jensen's inequality on the convex max(., 0))
         double ei = Acquisitions.expectedImprovement(mu, sigma, fMin);
         assertTrue(ei >= Math.max(fMin - mu, 0) - 1e-12 * (1 + Math.abs(fMin - mu)), "EI " + ei);
     }
@@ -29,7 +31,7 @@ class AcquisitionsPropertyTest {
             @ForAll @DoubleRange(min = -10, max = 10) double mu,
             @ForAll @DoubleRange(min = 0.01, max = 10) double sigma,
             @ForAll @DoubleRange(min = -10, max = 10) double fMin) {
-        // §3.1: EI(mu, sigma; f) = sigma * EI(0, 1; (f - mu)/sigma)
+        // From the closed form: EI(mu, sigma; f) = sigma * EI(0, 1; (f - mu)/sigma)
         double lhs = Acquisitions.expectedImprovement(mu, sigma, fMin);
         double rhs = sigma * Acquisitions.expectedImprovement(0, 1, (fMin - mu) / sigma);
         assertEquals(rhs, lhs, 1e-12 * Math.max(1e-300, Math.abs(rhs)) + 1e-300, "scaling relation");
@@ -41,7 +43,7 @@ class AcquisitionsPropertyTest {
             @ForAll @DoubleRange(min = 0, max = 5) double sigma,
             @ForAll @DoubleRange(min = 0.01, max = 5) double extra,
             @ForAll @DoubleRange(min = -5, max = 5) double fMin) {
-        // §3.1: dEI/dsigma = phi(z) > 0
+        // From the closed form: dEI/dsigma = phi(z) > 0
         assertTrue(Acquisitions.expectedImprovement(mu, sigma + extra, fMin)
                 >= Acquisitions.expectedImprovement(mu, sigma, fMin), "monotone in sigma");
     }
@@ -51,7 +53,7 @@ class AcquisitionsPropertyTest {
             @ForAll @DoubleRange(min = -3, max = 3) double mu,
             @ForAll @DoubleRange(min = 0.2, max = 3) double sigma,
             @ForAll @DoubleRange(min = -3, max = 3) double fMin) {
-        // §3.1: dEI/dmu = -Phi(z), dEI/dsigma = phi(z); central differences with h = 1e-5
+        // From the closed form: dEI/dmu = -Phi(z), dEI/dsigma = phi(z); central differences with h = 1e-5
         double h = 1e-5;
         double z = (fMin - mu) / sigma;
         double dMu = (Acquisitions.expectedImprovement(mu + h, sigma, fMin)

@@ -103,6 +103,23 @@ class CampaignReaderTest {
     }
 
     @Test
+    void aBadBoxIsOneMessageEvenWhenALimitNamesTheSetting() {
+        // one cause, one message: the limit must not add "unknown parameter 'temp'"
+        Diagnostic d = only(MINIMAL.replace("min: 500, max: 640", "min: 640, max: 500")
+                + "limits:\n  - temp >= 550\n", "must be below max");
+        assertEquals(4, d.line());
+    }
+
+    @Test
+    void aProductOfTwoSettingsInALimitSaysLimitsMustBeLinear() {
+        Diagnostic d = only(MINIMAL + "limits:\n  - temp >= rate * temp\n", "limits must be linear");
+        assertTrue(d.message().contains("'rate * temp' multiplies two settings"), d.message());
+        assertEquals(9, d.line());
+        assertEquals(5 + "temp >= rate * ".length(), d.column());
+        only(MINIMAL + "limits:\n  - temp >= 2 * rate * 3\n", "limits must be linear");
+    }
+
+    @Test
     void reportsLogScaleWithNonPositiveMin() {
         only(MINIMAL.replace("min: 0.1, max: 1.0, scale: log", "min: 0, max: 1.0, scale: log"), "scale: log needs min > 0");
     }

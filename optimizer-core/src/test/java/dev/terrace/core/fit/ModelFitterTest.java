@@ -155,6 +155,21 @@ class ModelFitterTest {
         assertFalse(b.held());
         assertTrue(b.reason().contains("bootstrap"), b.reason());
         assertTrue(Double.isFinite(b.lo()) && Double.isFinite(b.hi()) && b.lo() <= b.value() && b.value() <= b.hi());
+        // Reference library: Apache Commons Math SimpleRegression on the same six (T, size) pairs. The point
+        // estimate is the least-squares slope; the bootstrap interval estimates the same sampling spread as the
+        // t interval (Efron & Tibshirani, An Introduction to the Bootstrap, Chapman & Hall 1993, ch. 9), so its
+        // half-width must agree with the OLS 95 % half-width within a factor of 2 (tolerance: test design
+        // choice for n = 6, where the percentile interval is known to run narrow).
+        SimpleRegression ols = new SimpleRegression();
+        double[][] pts = {{200, 30}, {300, 35}, {400, 41}, {500, 44}, {600, 52}, {620, 53}};
+        for (double[] pt : pts) {
+            ols.addData(pt[0] + 273.15, pt[1]);
+        }
+        assertEquals(ols.getSlope(), b.value(), 1e-6, "least-squares slope");
+        double olsHalf = ols.getSlopeConfidenceInterval(0.05);
+        double half = (b.hi() - b.lo()) / 2;
+        assertTrue(half > olsHalf / 2 && half < olsHalf * 2,
+                "bootstrap half-width " + half + " against OLS t half-width " + olsHalf);
     }
 
     @Test

@@ -8,24 +8,28 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 class IonGaugeTest {
 
-    /** Rounding of the three-decimal check values. */
-    private static final double ROUNDING = 5e-4;
+    /** Tolerance of the check values (exact Summers-rule arithmetic to 1e-6). */
+    private static final double ROUNDING = 1e-6;
 
     @Test
     void summersRuleGivesTheTabulatedSensitivities() {
-        // Check values derived from Summers' rule, eta/eta_N2 = 0.4 Z/14 + 0.6 (R. L. Summers,
-        // NASA TN D-5285, 1969; coefficients from memory), as listed in the project's reference
-        // file (physics check values, section 5).
-        assertEquals(0.971, IonGauge.relativeSensitivity(Species.Al), ROUNDING, "Al");
-        assertEquals(1.486, IonGauge.relativeSensitivity(Species.Ga), ROUNDING, "Ga");
-        assertEquals(2.000, IonGauge.relativeSensitivity(Species.In), ROUNDING, "In");
-        assertEquals(1.543, IonGauge.relativeSensitivity(Species.As), ROUNDING, "As");
-        assertEquals(2.486, IonGauge.relativeSensitivity(Species.As2), ROUNDING, "As2");
-        assertEquals(4.371, IonGauge.relativeSensitivity(Species.As4), ROUNDING, "As4");
-        assertEquals(2.057, IonGauge.relativeSensitivity(Species.Sb), ROUNDING, "Sb");
-        assertEquals(6.429, IonGauge.relativeSensitivity(Species.Sb4), ROUNDING, "Sb4");
-        assertEquals(1.457, IonGauge.relativeSensitivity(Species.P2), ROUNDING, "P2");
-        assertEquals(2.314, IonGauge.relativeSensitivity(Species.P4), ROUNDING, "P4");
+        // Summers' rule, eta/eta_N2 = 0.4 Z/14 + 0.6 (R. L. Summers, "Empirical observations on the
+        // sensitivity of hot cathode ionization type vacuum gages", NASA TN D-5285 (1969); the report
+        // is confirmed, the coefficients 0.4 and 0.6 are from memory). Z = electrons per molecule
+        // (atomic numbers Al 13, Ga 31, In 49, P 15, As 33, Sb 51). Arithmetic, rounded to 3 decimals:
+        // Al 0.4*13/14+0.6 = 0.9714; Ga 0.4*31/14+0.6 = 1.4857; In 0.4*49/14+0.6 = 2.0000;
+        // As 0.4*33/14+0.6 = 1.5429; As2 (Z 66) 2.4857; As4 (Z 132) 4.3714; Sb 2.0571;
+        // Sb4 (Z 204) 6.4286; P2 (Z 30) 1.4571; P4 (Z 60) 2.3143.
+        assertEquals(0.971429, IonGauge.relativeSensitivity(Species.Al), ROUNDING, "Al");
+        assertEquals(1.485714, IonGauge.relativeSensitivity(Species.Ga), ROUNDING, "Ga");
+        assertEquals(2.0, IonGauge.relativeSensitivity(Species.In), ROUNDING, "In");
+        assertEquals(1.542857, IonGauge.relativeSensitivity(Species.As), ROUNDING, "As");
+        assertEquals(2.485714, IonGauge.relativeSensitivity(Species.As2), ROUNDING, "As2");
+        assertEquals(4.371429, IonGauge.relativeSensitivity(Species.As4), ROUNDING, "As4");
+        assertEquals(2.057143, IonGauge.relativeSensitivity(Species.Sb), ROUNDING, "Sb");
+        assertEquals(6.428571, IonGauge.relativeSensitivity(Species.Sb4), ROUNDING, "Sb4");
+        assertEquals(1.457143, IonGauge.relativeSensitivity(Species.P2), ROUNDING, "P2");
+        assertEquals(2.314286, IonGauge.relativeSensitivity(Species.P4), ROUNDING, "P4");
     }
 
     @Test
@@ -36,12 +40,13 @@ class IonGaugeTest {
 
     @Test
     void summersRuleStaysWithinThirtyPercentOfMeasuredBayardAlpertSensitivities() {
-        // CRC Handbook of Chemistry and Physics, table of relative sensitivities of Bayard-Alpert
-        // gauges (averages of 12 experimenters), as quoted in the project's reference file:
+        // CRC Handbook of Chemistry and Physics, section 15 (vacuum technology), table of relative
+        // sensitivities of Bayard-Alpert ionization gauges to various gases, averages over 12
+        // experimenters (edition not recorded; values read in a copy of the table):
         // Ar 1.4 (Z 18), Hg 3.5 (Z 80), O2 0.96 (Z 16), CO 1.0 (Z 14), CO2 1.4 (Z 22).
-        // The formula gives Ar 1.11 and Hg 2.89 (reference file, section 5).
-        assertEquals(1.11, IonGauge.relativeSensitivity(18), 0.005, "Ar by the formula");
-        assertEquals(2.89, IonGauge.relativeSensitivity(80), 0.005, "Hg by the formula");
+        // Summers' formula gives Ar 0.4*18/14+0.6 = 1.114 and Hg 0.4*80/14+0.6 = 2.886.
+        assertEquals(1.114286, IonGauge.relativeSensitivity(18), 1e-6, "Ar by the formula");
+        assertEquals(2.885714, IonGauge.relativeSensitivity(80), 1e-6, "Hg by the formula");
         int[] z = {18, 80, 16, 14, 22};
         double[] measured = {1.4, 3.5, 0.96, 1.0, 1.4};
         for (int i = 0; i < z.length; i++) {

@@ -14,9 +14,12 @@ class RheedCalibrationTest {
 
     @Test
     void periodOfOnePointTwoFiveSecondsIsPointEightMonolayersPerSecondOnGaAs() {
-        // Reference file (physics check values, section 5) [derived], with 1 period = 1 ML = a/2
-        // (Harris, Joyce, Dobson, Surf. Sci. 103, L90 (1981); Wood, Surf. Sci. 108, L441 (1981)):
-        // 0.8 ML/s = 0.2261 nm/s = 0.814 um/h, Ga flux 5.006e14 cm^-2 s^-1.
+        // One RHEED oscillation period = 1 ML = a/2 on GaAs(001) (Harris, Joyce, Dobson, Surf. Sci.
+        // 103, L90 (1981); Wood, Surf. Sci. 108, L441 (1981); citations from memory), with
+        // a(GaAs, 300 K) = 0.565325 nm (Vurgaftman, Meyer, Ram-Mohan, J. Appl. Phys. 89, 5815 (2001),
+        // Table III). Derivation: 1/1.25 s = 0.8 ML/s; 0.8 * 0.2826625 nm = 0.22613 nm/s;
+        // * 3600 s/h / 1000 nm/um = 0.81407 um/h; sites 2/a^2 = 2/(0.565325e-7 cm)^2 = 6.2580e14 cm^-2,
+        // * 0.8 = 5.0064e14 cm^-2 s^-1.
         GrowthRate g = RheedCalibration.fromPeriod(1.25, GAAS);
         assertEquals(0.8, g.mlPerS(), 1e-12);
         assertEquals(0.2261, g.nmPerS(), 5e-5);
@@ -27,8 +30,8 @@ class RheedCalibrationTest {
 
     @Test
     void periodOfOneSecondGivesOneMonolayerPerSecondOnGaAs() {
-        // Reference file, "suggested golden tests" item 8 [derived]: 0.28266 nm/s,
-        // 6.258e14 cm^-2 s^-1, 1.0176 um/h.
+        // Same sources as above. Derivation: 1 ML/s * a/2 = 0.2826625 nm/s; 2/a^2 = 6.2580e14 cm^-2 s^-1;
+        // 0.2826625 nm/s * 3.6 = 1.01759 um/h.
         GrowthRate g = RheedCalibration.fromPeriod(1.0, GAAS);
         assertEquals(0.28266, g.nmPerS(), 5e-6);
         assertEquals(6.258e14, g.atomsPerCm2PerS(), 0.0005e14);
@@ -37,8 +40,9 @@ class RheedCalibrationTest {
 
     @Test
     void monolayerDependsOnTheCompound() {
-        // Reference file section 4 [derived from Vurgaftman 2001]: InAs a/2 = 0.30291 nm,
-        // 2/a^2 = 5.4491e14 cm^-2, 1 ML/s = 1.0905 um/h.
+        // a(InAs, 300 K) = 0.60583 nm (Vurgaftman, Meyer, Ram-Mohan, J. Appl. Phys. 89, 5815 (2001),
+        // Table XIII). Derivation: a/2 = 0.302915 nm; 2/a^2 = 2/(0.60583e-7 cm)^2 = 5.4491e14 cm^-2;
+        // 0.302915 nm/s * 3.6 = 1.09049 um/h.
         GrowthRate g = RheedCalibration.fromPeriod(1.0, Materials.compound("InAs").orElseThrow());
         assertEquals(0.30291, g.nmPerS(), 5e-6);
         assertEquals(5.4491e14, g.atomsPerCm2PerS(), 0.00005e14);

@@ -11,10 +11,10 @@ class SpeciesTest {
 
     @Test
     void molarMassesAreStandardAtomicWeightsTimesAtoms() {
-        // IUPAC standard atomic weights (from memory): As 74.921595, Sb 121.760, P 30.973762,
-        // Ga 69.723, In 114.818, Al 26.9815385. M_As4 = 299.69 is the value quoted in the
-        // project's reference file (physics check values, section 5).
-        assertEquals(299.69, Species.As4.molarMass(), 0.005, "M(As4), reference file section 5");
+        // IUPAC standard atomic weights (CIAAW, Pure Appl. Chem. 88, 265 (2016); values from memory):
+        // As 74.921595, Sb 121.760, P 30.973762, Ga 69.723, In 114.818, Al 26.9815385.
+        // M_As4 = 4 * 74.921595 = 299.68638 g/mol.
+        assertEquals(4 * 74.921595, Species.As4.molarMass(), 1e-6, "M(As4) = 4 M(As), IUPAC");
         assertEquals(69.723, Species.Ga.molarMass(), 1e-9, "M(Ga), IUPAC");
         assertEquals(2 * 74.921595, Species.As2.molarMass(), 1e-6, "M(As2), IUPAC");
         assertEquals(74.921595, Species.As.molarMass(), 1e-6, "M(As), IUPAC");

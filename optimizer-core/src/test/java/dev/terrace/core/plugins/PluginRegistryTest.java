@@ -174,6 +174,25 @@ class PluginRegistryTest {
     }
 
     /** Compiles a one-class plugin and packs it with its service file into a jar. */
+    @Test
+    void reportsACorruptPluginJarAndAJarWithoutAServiceEntry(@TempDir Path tmp) throws Exception {
+        Path dir = Files.createDirectories(tmp.resolve("plugins"));
+        // a download cut short: the zip local-file signature "PK\3\4" (PKWARE APPNOTE.TXT 4.3.7) and then nothing
+        Files.write(dir.resolve("broken.jar"), new byte[] {'P', 'K', 3, 4, 0, 0});
+        try (java.util.jar.JarOutputStream out = new java.util.jar.JarOutputStream(
+                Files.newOutputStream(dir.resolve("empty.jar")))) {
+            out.putNextEntry(new java.util.jar.JarEntry("readme.txt"));
+            out.write("no plugin here".getBytes(java.nio.charset.StandardCharsets.UTF_8));
+            out.closeEntry();
+        }
+        PluginRegistry r = PluginRegistry.builder().autoDiscovery(false).pluginDir(dir).build();
+        assertTrue(r.ids().isEmpty());
+        List<String> messages = r.problems().stream().map(PluginProblem::message).toList();
+        assertEquals(2, messages.size(), messages::toString);
+        assertTrue(messages.stream().anyMatch(m -> m.contains("broken.jar cannot be read as a jar")), messages::toString);
+        assertTrue(messages.stream().anyMatch(m -> m.contains("empty.jar declares no growth model")), messages::toString);
+    }
+
     static void buildPluginJar(Path work, Path jar, String className, String id, boolean throwInConstructor)
             throws IOException {
         String pkg = className.substring(0, className.lastIndexOf('.'));

@@ -110,18 +110,36 @@ class RunLogPropertyTest {
 
     // ---- round trip ---------------------------------------------------------------------------
 
-    /** Free text for ids and notes: any characters except CR (which a quoted cell turns into LF). */
+    /**
+     * Free text for ids and proposals: any characters except control characters, which the reader
+     * refuses outside notes (they could rewrite a terminal when printed).
+     */
     @Provide
     Arbitrary<String> texts() {
         return Arbitraries.frequencyOf(
                 Tuple.of(3, Arbitraries.strings().all().ofMinLength(1).ofMaxLength(20)),
-                Tuple.of(2, Arbitraries.strings().withChars("ab,\"# \n\t\u00e9\u4e2d").ofMinLength(1).ofMaxLength(12)))
-                .map(s -> s.replace('\r', ' '))
+                Tuple.of(2, Arbitraries.strings().withChars("ab,\"# \u00e9\u4e2d").ofMinLength(1).ofMaxLength(12)))
+                .map(RunLogPropertyTest::withoutControls)
                 .filter(s -> !s.isBlank());
     }
 
+    /** Free text for notes: as {@link #texts()}, and tabs and line breaks, but no CR (a quoted cell turns it into LF). */
+    @Provide
+    Arbitrary<String> noteTexts() {
+        return Arbitraries.frequencyOf(
+                Tuple.of(3, texts()),
+                Tuple.of(2, Arbitraries.strings().withChars("ab,\"# \n\t\u00e9\u4e2d").ofMinLength(1).ofMaxLength(12)))
+                .filter(s -> !s.isBlank());
+    }
+
+    private static String withoutControls(String s) {
+        StringBuilder sb = new StringBuilder(s.length());
+        s.chars().forEach(c -> sb.append(Character.isISOControl(c) ? ' ' : (char) c));
+        return sb.toString();
+    }
+
     @Property(tries = 300)
-    void validRowReadsBackAsTheSameRun(@ForAll("texts") String rawId, @ForAll("texts") String notes,
+    void validRowReadsBackAsTheSameRun(@ForAll("texts") String rawId, @ForAll("noteTexts") String notes,
                                        @ForAll("texts") String rawProposal, @ForAll Random random) throws Exception {
         String runId = rawId.strip();
         String proposal = rawProposal.strip();

@@ -398,6 +398,34 @@ class RunLogReaderTest {
     }
 
     @Test
+    void aControlCharacterInACellIsAPositionedErrorAndIsNotEchoedRaw() {
+        // ESC [ 2 J clears a VT100/ECMA-48 terminal (ECMA-48, 5th ed. 1991, 8.3.39 ED)
+        Diagnostic d = onlyError("run_id,density\nD\u001b[2J02,2e9\n");
+        assertAt(d, 2, 1);
+        assertMentions(d, "control character U+001B", "D\\u001b[2J02");
+        assertFalse(d.message().contains("\u001b"), "no raw escape in the message");
+    }
+
+    @Test
+    void tabsAndLineBreaksAreAllowedInQuotedNotesOnly() throws Exception {
+        RunLog log = read("run_id,notes\nA,\"first line\nsecond\tline\"\n");
+        assertEquals("first line\nsecond\tline", log.runs().get(0).notes());
+        assertMentions(onlyError("run_id,density\n\"A\tB\",2e9\n"), "control character U+0009");
+    }
+
+    @Test
+    void aFileThatIsNotARunLogGetsOneMessageWithAShortEscapedExcerpt() {
+        String passwdLike = "root:x:0:0:root:/root:/bin/bash\ndaemon:x:1:1:daemon:/usr/sbin:/usr/sbin/nologin,a,b\n";
+        List<Diagnostic> errors = errors(passwdLike);
+        assertEquals(1, errors.size(), errors::toString);
+        Diagnostic d = errors.get(0);
+        assertAt(d, 1, 1);
+        assertMentions(d, "does not look like a run log", "root:x:0:0:root:/root:/b\u2026");
+        assertFalse(d.message().contains("/bin/bash"), "at most a short excerpt of a foreign file");
+        assertFalse(d.message().contains("daemon"), "later lines are not read or echoed");
+    }
+
+    @Test
     void censoredCellsAreReadAsBoundsNotNumbers() throws Exception {
         RunLog log = read("run_id,density,diameter\nA,<1e8,>60\nB, < 5e7 ,40\nC,<=2e8,\n");
         Run a = log.runs().get(0);

@@ -146,7 +146,9 @@ class GaussianProcessHpoTest {
     void hyperparametersStayInsideTheirBounds() {
         // A near-constant function pushes length scales to the upper bound and noise to the floor.
         // Expected bounds are GpSettings' own constants; the 1e-9 relative slack and the data (10 points,
-        // seed 3) are a test design choice.
+        // seed 3) are a test design choice. The bounds hold by construction; what can fail is below: the
+        // found point must be a (bounded) local maximum of the log marginal likelihood, and that likelihood
+        // must agree with an independent evaluation of R&W 2006 eq. 2.30 by Apache Commons Math.
         List<DesignPoint> x = new ArrayList<>();
         double[] y = new double[10];
         for (int i = 0; i < 10; i++) {
@@ -164,6 +166,55 @@ class GaussianProcessHpoTest {
         assertTrue(h.signalVariance() >= GpSettings.SIGNAL_VARIANCE_MIN
                 && h.signalVariance() <= GpSettings.SIGNAL_VARIANCE_MAX);
         assertTrue(h.lengthScale(1) > h.lengthScale(0), "x2 has no effect, so its length scale is longer");
+
+        // Local optimality: moving any one hyperparameter by a factor 1.2 either way (kept inside its
+        // bounds) must not raise the log marginal likelihood of the standardised data (slack 1e-6: test
+        // design choice, for the optimiser's stopping tolerance).
+        double best = GaussianProcess.withHyperparameters(x, y, null, h, true).logMarginalLikelihood();
+        for (int k = 0; k < 4; k++) {
+            for (double factor : new double[] {1.2, 1 / 1.2}) {
+                double[] l = h.lengthScales().clone();
+                double sf = h.signalVariance();
+                double sn = h.noiseVariance();
+                if (k < 2) {
+                    l[k] = Math.min(s.lengthScaleMax(), Math.max(s.lengthScaleMin(), l[k] * factor));
+                } else if (k == 2) {
+                    sf = Math.min(GpSettings.SIGNAL_VARIANCE_MAX, Math.max(GpSettings.SIGNAL_VARIANCE_MIN, sf * factor));
+                } else {
+                    sn = Math.min(GpSettings.NOISE_VARIANCE_MAX, Math.max(s.noiseFloor(), sn * factor));
+                }
+                GpHyperparameters moved = new GpHyperparameters(sf, l, new double[0], sn);
+                double lml = GaussianProcess.withHyperparameters(x, y, null, moved, true).logMarginalLikelihood();
+                assertTrue(lml <= best + 1e-6, "hyperparameter " + k + " x " + factor + ": " + lml + " > " + best);
+            }
+        }
+        // Independent evaluation of eq. 2.30 on y itself (no standardisation): Cholesky of K + sigma_n^2 I
+        // by org.apache.commons.math3.linear.CholeskyDecomposition, Matern-5/2 ARD written out here.
+        int n = x.size();
+        double[][] kk = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                double r2 = 0;
+                for (int d = 0; d < 2; d++) {
+                    double u = (x.get(i).x(d) - x.get(j).x(d)) / h.lengthScale(d);
+                    r2 += u * u;
+                }
+                double r = Math.sqrt(r2);
+                kk[i][j] = h.signalVariance() * (1 + Math.sqrt(5) * r + 5 * r2 / 3) * Math.exp(-Math.sqrt(5) * r)
+                        + (i == j ? h.noiseVariance() : 0);
+            }
+        }
+        org.apache.commons.math3.linear.CholeskyDecomposition chol =
+                new org.apache.commons.math3.linear.CholeskyDecomposition(
+                        new org.apache.commons.math3.linear.Array2DRowRealMatrix(kk), 1e-12, 1e-14);
+        double[] alpha = chol.getSolver().solve(new org.apache.commons.math3.linear.ArrayRealVector(y)).toArray();
+        double quad = 0;
+        for (int i = 0; i < n; i++) {
+            quad += y[i] * alpha[i];
+        }
+        double reference = -0.5 * quad - 0.5 * Math.log(chol.getDeterminant()) - 0.5 * n * Math.log(2 * Math.PI);
+        double ours = GaussianProcess.withHyperparameters(x, y, null, h, false).logMarginalLikelihood();
+        assertEquals(reference, ours, 1e-8 * Math.abs(reference), "log marginal likelihood, Commons Math 3.6.1");
     }
 
     private static double[] standardise(double[] y) {

@@ -45,8 +45,8 @@ class GaussianProcessPriorMeanTest {
 
     @Test
     void aPriorMeanEqualToTheTruthGivesGoodPredictionsFromFewRuns() {
-        // Using a physics model as the GP prior mean (search-check-values section 5, "physics
-        // priors"): with m = f and measurement noise 0.01, the predictions stay within 5 noise sd
+        // A physics model as the GP prior mean (Rasmussen & Williams 2006, section 2.7, explicit
+        // basis/mean functions): with m = f and measurement noise 0.01, the predictions stay within 5 noise sd
         // of f at new points, while a constant-mean GP on the same 5 runs cannot.
         SplittableRandom r = new SplittableRandom(21);
         List<DesignPoint> x = randomPoints(5, r);

@@ -15,19 +15,22 @@ class GpKernelTest {
 
     @Test
     void maternFiveHalvesMatchesTheMpmathCheckValue() {
-        // search-check-values section 3.3 [C, verified with mpmath]: x = (0.1, 0.2), x' = (0.4, 0.6),
-        // l = (0.5, 2.0), sigma_f = 1 -> r = 0.6324555320336759, Matern-5/2 = 0.7490135404670807.
+        // Matern-5/2 ARD kernel, k = sigma_f^2 (1 + sqrt5 r + 5r^2/3) exp(-sqrt5 r) with
+        // r^2 = sum_k (x_k - x'_k)^2 / l_k^2 (Rasmussen & Williams, Gaussian Processes for Machine
+        // Learning, MIT Press 2006, eq. 4.17). x = (0.1, 0.2), x' = (0.4, 0.6), l = (0.5, 2.0),
+        // sigma_f = 1: r = sqrt((0.3/0.5)^2 + (0.4/2)^2) = sqrt(0.36 + 0.04) = sqrt(0.4) = 0.6324555320336759;
+        // M52 = 0.7490135404670807 (mpmath 1.3.0 at 40 digits, rounded to double).
         GpKernel k = kernel(1.0, new double[] {0.5, 2.0}, new double[0]);
         double[] x = {0.1, 0.2};
         double[] y = {0.4, 0.6};
-        assertEquals(0.6324555320336759, k.scaledDistance(x, y), 1e-15, "r, search-check-values 3.3");
-        assertEquals(0.7490135404670807, k.k(x, y), 1e-15, "M52, search-check-values 3.3");
+        assertEquals(0.6324555320336759, k.scaledDistance(x, y), 1e-15, "r = sqrt(0.4)");
+        assertEquals(0.7490135404670807, k.k(x, y), 1e-15, "M52, mpmath");
         assertEquals(0.7490135404670807, GpKernel.matern52(0.6324555320336759), 1e-15, "M52 of r");
     }
 
     @Test
     void signalVarianceScalesTheKernelAndIsItsValueAtZeroDistance() {
-        // k = sigma_f^2 * M52(r) (Rasmussen & Williams 2006, eq. 4.17); M52 value from search-check-values 3.3.
+        // k = sigma_f^2 * M52(r) (Rasmussen & Williams 2006, eq. 4.17); M52 value from the test above (mpmath).
         GpKernel k = kernel(2.5, new double[] {0.5, 2.0}, new double[0]);
         assertEquals(2.5 * 0.7490135404670807, k.k(new double[] {0.1, 0.2}, new double[] {0.4, 0.6}), 1e-14);
         assertEquals(2.5, k.k(new double[] {0.3, 0.3}, new double[] {0.3, 0.3}), 0.0);
@@ -35,7 +38,8 @@ class GpKernelTest {
 
     @Test
     void categoricalFactorIsOneForTheSameLevelAndRhoPerDifferingSetting() {
-        // k = k_x * prod_j (1 if same level else rho_j) (search-check-values section 5, categorical row [derived]).
+        // k = k_x * prod_j (1 if same level else rho_j): the exchangeable correlation of a qualitative
+        // factor (Qian, Wu, Wu, Technometrics 50, 383 (2008); citation from memory), one rho per setting.
         GpKernel k = kernel(1.0, new double[] {0.5, 2.0}, new double[] {0.3, 0.6});
         double m52 = 0.7490135404670807;
         double[] a = GpKernel.encode(new DesignPoint(new double[] {0.1, 0.2}, new int[] {0, 2}));

@@ -35,13 +35,16 @@ class ParetoFrontTest {
 
     @Test
     void hypervolumeMatchesTheCheckValues() {
-        // search-check-values §4 (hypervolume, minimisation): {(1,3),(2,2),(3,1)} with r = (4,4) gives 6
+        // Hypervolume ("S metric", Zitzler & Thiele, IEEE Trans. Evol. Comput. 3, 257 (1999)), two
+        // objectives, minimisation: HV = sum_i (f1[i+1] - f1[i]) (r2 - f2[i]) over the front sorted by
+        // f1, f1[n+1] = r1. {(1,3),(2,2),(3,1)}, r = (4,4): (2-1)(4-3) + (3-2)(4-2) + (4-3)(4-1)
+        // = 1 + 2 + 3 = 6.
         List<double[]> a = new ArrayList<>(List.of(new double[] {1, 3}, new double[] {2, 2}, new double[] {3, 1}));
         assertEquals(6.0, ParetoFront.hypervolume(a, 4, 4), 1e-12);
-        // adding the dominated point (2.5, 2.5) still gives 6 (same source)
+        // adding the dominated point (2.5, 2.5) still gives 6: (2,2) dominates it, so the front is unchanged
         a.add(new double[] {2.5, 2.5});
         assertEquals(6.0, ParetoFront.hypervolume(a, 4, 4), 1e-12);
-        // {(0.2,0.8),(0.5,0.4),(0.9,0.1)} with r = (1,1) gives 0.39 (same source)
+        // {(0.2,0.8),(0.5,0.4),(0.9,0.1)}, r = (1,1): 0.3*0.2 + 0.4*0.6 + 0.1*0.9 = 0.06 + 0.24 + 0.09 = 0.39
         List<double[]> b = List.of(new double[] {0.2, 0.8}, new double[] {0.5, 0.4}, new double[] {0.9, 0.1});
         assertEquals(0.39, ParetoFront.hypervolume(b, 1, 1), 1e-12);
         assertEquals(0.0, ParetoFront.hypervolume(List.of(new double[] {5, 5}), 4, 4), 0.0, "outside the reference");
@@ -49,7 +52,10 @@ class ParetoFrontTest {
 
     @Test
     void crowdingDistanceMatchesTheCheckValue() {
-        // search-check-values §4 (Deb et al. 2002 definition): (0,1),(0.25,0.75),(0.5,0.5),(1,0) -> (inf, 1.0, 1.5, inf)
+        // Crowding distance of NSGA-II (Deb, Pratap, Agarwal, Meyarivan, IEEE Trans. Evol. Comput. 6, 182
+        // (2002)): boundary points infinite; interior i adds (f_m[i+1] - f_m[i-1]) / (f_m max - f_m min)
+        // per objective. (0,1),(0.25,0.75),(0.5,0.5),(1,0): point 2: (0.5-0)/1 + (1-0.5)/1 = 1.0;
+        // point 3: (1-0.25)/1 + (0.75-0)/1 = 1.5.
         double[] d = ParetoFront.crowdingDistance(List.of(new double[] {0, 1}, new double[] {0.25, 0.75},
                 new double[] {0.5, 0.5}, new double[] {1, 0}));
         assertEquals(Double.POSITIVE_INFINITY, d[0]);

@@ -180,6 +180,25 @@ public abstract class GrowthModelContractTest {
         for (Role r : outcomes) {
             assertEquals(Role.Kind.OUTCOME, r.kind(), r.key() + " is not an outcome role");
         }
+        // Behaviour: every announced outcome is actually predicted, on the typical recipe or on some valid
+        // recipe of the first 300 sweep cases per surface with default parameters.
+        GrowthModel m = model();
+        ParameterValues defaults = ParameterValues.defaults(m.parameters());
+        Set<Role> seen = new HashSet<>();
+        Prediction typical = m.predict(typicalConditions(), typicalSurface(), defaults);
+        seen.addAll(typical.values().keySet());
+        seen.addAll(typical.probabilities().keySet());
+        RandomGenerator rng = new SplittableRandom(SWEEP_SEED);
+        for (Surface surface : sweepSurfaces()) {
+            for (int i = 0; i < 300 && !seen.containsAll(outcomes); i++) {
+                Prediction p = m.predict(randomConditions(rng), surface, defaults);
+                if (p.validity().valid()) {
+                    seen.addAll(p.values().keySet());
+                    seen.addAll(p.probabilities().keySet());
+                }
+            }
+        }
+        assertEquals(outcomes, seen, "announced outcomes against those ever predicted");
     }
 
     @Test
@@ -191,6 +210,29 @@ public abstract class GrowthModelContractTest {
         Set<Role> both = new HashSet<>(required);
         both.retainAll(optional);
         assertTrue(both.isEmpty(), "roles both required and optional: " + both);
+        // Behaviour: a model reads only the inputs it declares (the core chains models by these sets), so
+        // setting any undeclared role on the typical recipe must leave the prediction unchanged.
+        GrowthModel m = model();
+        ParameterValues defaults = ParameterValues.defaults(m.parameters());
+        Conditions typical = typicalConditions();
+        Prediction base = m.predict(typical, typicalSurface(), defaults);
+        for (Role r : Role.values()) {
+            if (required.contains(r) || optional.contains(r) || r.quantity() == Quantity.CLASS
+                    || typical.numbers().containsKey(r)
+                    || typical.categories().containsKey(r)) {
+                continue;
+            }
+            Conditions.Builder b = Conditions.builder();
+            typical.numbers().forEach(b::set);
+            typical.categories().forEach(b::set);
+            if (r.quantity() == Quantity.CATEGORY) {
+                b.set(r, SWEEP_SPECIES.get(0));
+            } else {
+                b.set(r, r.quantity() == Quantity.TEMPERATURE ? 500.0 : 1.0);
+            }
+            assertEquals(base, m.predict(b.build(), typicalSurface(), defaults),
+                    "undeclared input " + r.key() + " changed the prediction");
+        }
     }
 
     @Test

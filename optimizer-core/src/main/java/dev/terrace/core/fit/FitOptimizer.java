@@ -1,0 +1,237 @@
+package dev.terrace.core.fit;
+
+import static dev.terrace.core.fit.ModelFitter.*;
+
+import dev.terrace.core.model.ModelChain;
+import dev.terrace.spi.GrowthModel;
+import dev.terrace.core.runlog.Run;
+import dev.terrace.core.campaign.Campaign;
+import dev.terrace.spi.ModelParameter;
+import dev.terrace.spi.Prediction;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
+import org.apache.commons.math3.fitting.leastsquares.LeastSquaresOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.LevenbergMarquardtOptimizer;
+import org.apache.commons.math3.fitting.leastsquares.MultivariateJacobianFunction;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.ArrayRealVector;
+import org.apache.commons.math3.linear.RealMatrix;
+import org.apache.commons.math3.linear.RealVector;
+import org.apache.commons.math3.optim.InitialGuess;
+import org.apache.commons.math3.optim.MaxEval;
+import org.apache.commons.math3.optim.PointValuePair;
+import org.apache.commons.math3.optim.SimpleBounds;
+import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
+import org.apache.commons.math3.optim.nonlinear.scalar.ObjectiveFunction;
+import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.BOBYQAOptimizer;
+import org.apache.commons.math3.optim.univariate.BrentOptimizer;
+import org.apache.commons.math3.optim.univariate.SearchInterval;
+import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
+import org.apache.commons.math3.util.Pair;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.SplittableRandom;
+
+/** Fits one combination of discrete choices: multi-start, reweighting, Levenberg-Marquardt or BOBYQA/Brent. */
+abstract class FitOptimizer extends FreeParameters {
+
+    FitOptimizer(Campaign c, List<Run> runs, GrowthModel model, ModelChain upstream, SplittableRandom rng) {
+        super(c, runs, model, upstream, rng);
+    }
+    /**
+     * Fits one combination of discrete choices. The free parameters are chosen at the defaults, fitted,
+     * chosen again at the fitted values and, when the choice changed, refitted from there (at most
+     * {@link ModelFitter#FREE_SET_RECHECKS} times), so what is free does not hinge on defaults the runs
+     * contradict.
+     */
+    CandidateFit fitCandidate(Map<String, Double> combo, SplittableRandom rng) {
+        CandidateFit cf = new CandidateFit();
+        cf.combo = combo;
+        chooseFree(cf, Map.of());
+        fitFree(cf, Map.of(), rng, intervals ? 2 : 0);
+        for (int round = 0; round < FREE_SET_RECHECKS && !cf.free.isEmpty(); round++) {
+            Map<String, Double> fitted = new LinkedHashMap<>();
+            for (int i = 0; i < cf.free.size(); i++) {
+                fitted.put(cf.free.get(i).name(), fromU(cf.free.get(i), cf.u[i]));
+            }
+            List<ModelParameter> before = new ArrayList<>(cf.free);
+            Map<String, String> heldBefore = new LinkedHashMap<>(cf.heldReason);
+            chooseFree(cf, fitted);
+            if (cf.free.equals(before)) {
+                cf.heldReason.clear();
+                cf.heldReason.putAll(heldBefore);
+                break;
+            }
+            cf.freeSetChanged = true;
+            fitFree(cf, fitted, rng, 0);
+        }
+        Prediction[] preds = predictAll(values(combo, cf.free, cf.u));
+        cf.m2ll = minus2LogL(preds);
+        cf.k = cf.free.size() + numericOutcomes.size();
+        int n = obs.size();
+        cf.aicc = n - cf.k - 1 > 0 ? cf.m2ll + 2.0 * cf.k + 2.0 * cf.k * (cf.k + 1) / (n - cf.k - 1) : Double.NaN;
+        return cf;
+    }
+
+    /**
+     * Fits the candidate's current free parameters by reweighted minimisation from a start point and
+     * {@code extraStarts} random starts around it; sets {@code cf.u} and {@code cf.sigma}.
+     *
+     * @param at start values by name (missing ones at default)
+     */
+    void fitFree(CandidateFit cf, Map<String, Double> at, SplittableRandom rng, int extraStarts) {
+        Map<String, Double> combo = cf.combo;
+        double[] start = new double[cf.free.size()];
+        for (int i = 0; i < start.length; i++) {
+            ModelParameter p = cf.free.get(i);
+            start[i] = toU(p, at.getOrDefault(p.name(), p.defaultValue()));
+        }
+        double[] u = start;
+        Map<String, Double> sigma;
+        if (!cf.free.isEmpty()) {
+            List<double[]> starts = new ArrayList<>();
+            starts.add(start);
+            for (int s = 0; s < extraStarts; s++) {
+                double[] r = new double[start.length];
+                for (int i = 0; i < r.length; i++) {
+                    ModelParameter p = cf.free.get(i);
+                    double lo = uLo(p);
+                    double hi = uHi(p);
+                    // random start in the middle half of the range around the default
+                    r[i] = Math.max(lo, Math.min(hi, start[i] + (rng.nextDouble() - 0.5) * (hi - lo) * 0.25));
+                }
+                starts.add(r);
+            }
+            double bestVal = Double.POSITIVE_INFINITY;
+            double[] bestU = start;
+            sigma = startSigma();
+            for (double[] s0 : starts) {
+                double[] uu = s0;
+                Map<String, Double> sg = startSigma();
+                for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
+                    uu = minimise(uu, combo, cf.free, sg);
+                    Map<String, Double> next = updateSigma(predictAll(values(combo, cf.free, uu)));
+                    boolean settled = true;
+                    for (String k : next.keySet()) {
+                        if (Math.abs(next.get(k) / sg.get(k) - 1) > 0.05) {
+                            settled = false;
+                        }
+                    }
+                    sg = next;
+                    if (settled && iter > 0) {
+                        break;
+                    }
+                }
+                double val = minus2LogL(predictAll(values(combo, cf.free, uu)));
+                if (val < bestVal) {
+                    bestVal = val;
+                    bestU = uu;
+                    sigma = sg;
+                }
+            }
+            u = bestU;
+        } else {
+            sigma = updateSigma(predictAll(values(combo, cf.free, u)));
+        }
+        cf.u = u;
+        cf.sigma = sigma;
+    }
+
+    double[] minimise(double[] start, Map<String, Double> combo, List<ModelParameter> free,
+                      Map<String, Double> sigma) {
+        int d = start.length;
+        double[] lo = new double[d];
+        double[] hi = new double[d];
+        for (int i = 0; i < d; i++) {
+            lo[i] = uLo(free.get(i));
+            hi[i] = uHi(free.get(i));
+        }
+        if (!hasClass) {
+            return levenbergMarquardt(start, lo, hi, combo, free, sigma);
+        }
+        if (d == 1) {
+            UnivariateObjectiveFunction f = new UnivariateObjectiveFunction(
+                    x -> nll(new double[] {x}, combo, free, sigma));
+            double span = hi[0] - lo[0];
+            var r = new BrentOptimizer(1e-10, 1e-8 * span).optimize(new MaxEval(500), f, GoalType.MINIMIZE,
+                    new SearchInterval(lo[0], hi[0], Math.max(lo[0], Math.min(hi[0], start[0]))));
+            double best = nll(start, combo, free, sigma);
+            return r.getValue() <= best ? new double[] {r.getPoint()} : start;
+        }
+        double[] x0 = start.clone();
+        for (int i = 0; i < d; i++) {
+            x0[i] = Math.max(lo[i] + 1e-9 * (hi[i] - lo[i]), Math.min(hi[i] - 1e-9 * (hi[i] - lo[i]), x0[i]));
+        }
+        double radius = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < d; i++) {
+            radius = Math.min(radius, (hi[i] - lo[i]) / 4);
+        }
+        double[] bestX = start.clone();
+        double[] bestF = {nll(start, combo, free, sigma)};
+        try {
+            BOBYQAOptimizer opt = new BOBYQAOptimizer(2 * d + 1, radius, 1e-6 * radius);
+            PointValuePair p = opt.optimize(new MaxEval(maxEvaluations),
+                    new ObjectiveFunction(x -> {
+                        double f = nll(x, combo, free, sigma);
+                        if (f < bestF[0]) {
+                            bestF[0] = f;
+                            System.arraycopy(x, 0, bestX, 0, d);
+                        }
+                        return f;
+                    }), GoalType.MINIMIZE,
+                    new InitialGuess(x0), new SimpleBounds(lo, hi));
+            return p.getValue() <= bestF[0] ? p.getPoint() : bestX;
+        } catch (RuntimeException e) {
+            return bestX; // evaluation budget spent: keep the best point seen
+        }
+    }
+
+    double[] levenbergMarquardt(double[] start, double[] lo, double[] hi, Map<String, Double> combo,
+                                List<ModelParameter> free, Map<String, Double> sigma) {
+        int nRes = numericCount();
+        MultivariateJacobianFunction f = point -> {
+            double[] u = clamp(point.toArray(), lo, hi);
+            double[] r0 = numericResiduals(predictAll(values(combo, free, u)), sigma);
+            double[][] j = new double[nRes][u.length];
+            for (int k = 0; k < u.length; k++) {
+                double h = 1e-6 * Math.max(1, Math.abs(u[k])) + 1e-7 * (hi[k] - lo[k]);
+                double[] up = u.clone();
+                up[k] = u[k] + h <= hi[k] ? u[k] + h : u[k] - h;
+                double step = up[k] - u[k];
+                double[] r1 = numericResiduals(predictAll(values(combo, free, up)), sigma);
+                for (int i = 0; i < nRes; i++) {
+                    // residual = (y - f)/s, model value = -residual
+                    j[i][k] = -(r1[i] - r0[i]) / step;
+                }
+            }
+            double[] model = new double[nRes];
+            for (int i = 0; i < nRes; i++) {
+                model[i] = -r0[i];
+            }
+            return new Pair<RealVector, RealMatrix>(new ArrayRealVector(model, false),
+                    new Array2DRowRealMatrix(j, false));
+        };
+        try {
+            LeastSquaresOptimizer.Optimum opt = new LevenbergMarquardtOptimizer().optimize(new LeastSquaresBuilder()
+                    .start(start).model(f).target(new double[nRes])
+                    .parameterValidator(v -> new ArrayRealVector(clamp(v.toArray(), lo, hi), false))
+                    .maxEvaluations(2000).maxIterations(500).lazyEvaluation(false).build());
+            return clamp(opt.getPoint().toArray(), lo, hi);
+        } catch (RuntimeException e) {
+            return start;
+        }
+    }
+
+    double[] clamp(double[] u, double[] lo, double[] hi) {
+        double[] out = u.clone();
+        for (int i = 0; i < out.length; i++) {
+            if (!Double.isFinite(out[i])) {
+                out[i] = (lo[i] + hi[i]) / 2;
+            }
+            out[i] = Math.max(lo[i], Math.min(hi[i], out[i]));
+        }
+        return out;
+    }
+
+}

@@ -150,7 +150,9 @@ public final class Proposer {
             }
         }
         for (DesignPoint p : picks.points()) {
-            Map<String, Double> rounded = RecipeRounding.round(space, p); // already rounded: this undoes float noise
+            Map<String, Double> rounded = new LinkedHashMap<>(); // picks are already rounded: undo float noise only
+            space.numbers(p).forEach((k, v) -> rounded.put(k,
+                    new java.math.BigDecimal(v).round(new java.math.MathContext(12)).doubleValue()));
             DesignPoint rp = space.encode(rounded, space.categories(p));
             out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p), inc, ranges, ref));
         }

@@ -125,4 +125,53 @@ class ProposeCommandTest {
         assertEquals(2, bad.code());
         assertTrue(bad.err().contains("mine.csv:2:"), bad.err());
     }
+
+    @Test
+    void listsSettingsBeyondTheRunsInJsonAndTableAndKeepsAMarginOnRequest(@TempDir Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        // the ok runs' ga_amount range, read from the demo log here (invented demo data)
+        List<String> lines = Files.readAllLines(campaign.resolveSibling("runs.csv")).stream()
+                .filter(l -> !l.startsWith("#") && !l.isBlank()).toList();
+        List<String> head = List.of(lines.get(0).split(","));
+        int col = head.indexOf("ga_amount");
+        int st = head.indexOf("status");
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (String l : lines.subList(1, lines.size())) {
+            String[] f = l.split(",", -1);
+            if (st >= 0 && f[st].equals("failed")) {
+                continue;
+            }
+            lo = Math.min(lo, Double.parseDouble(f[col]));
+            hi = Math.max(hi, Double.parseDouble(f[col]));
+        }
+        CliTest.Outcome o = run("propose", campaign.toString(), "--batch", "2", "--format", "json");
+        assertEquals(0, o.code(), o.err());
+        for (JsonNode p : new ObjectMapper().readTree(o.out()).get("proposals")) {
+            assertTrue(p.has("beyond_runs"), "key always present");
+            double v = p.get("recipe").get("ga_amount").asDouble();
+            JsonNode b = p.get("beyond_runs").get("ga_amount");
+            assertEquals(v < lo || v > hi, b != null, "ga_amount " + v + " against runs " + lo + " to " + hi);
+            if (b != null) {
+                assertEquals(lo, b.get("runs_min").asDouble(), 0.0);
+                assertEquals(hi, b.get("runs_max").asDouble(), 0.0);
+            }
+        }
+        CliTest.Outcome table = run("propose", campaign.toString(), "--batch", "2");
+        if (o.out().contains("\"runs_min\"")) {
+            assertTrue(table.out().contains("* = outside the range of the ok runs"), table.out());
+            assertTrue(table.out().contains("is beyond the ok runs"), table.out());
+        }
+        CliTest.Outcome inside = run("propose", campaign.toString(), "--batch", "2", "--format", "json",
+                "--within-runs", "0");
+        assertEquals(0, inside.code(), inside.err());
+        for (JsonNode p : new ObjectMapper().readTree(inside.out()).get("proposals")) {
+            assertEquals(0, p.get("beyond_runs").size(), p.toString());
+        }
+        for (String bad : List.of("11", "-0.1", "NaN")) {
+            CliTest.Outcome e = run("propose", campaign.toString(), "--within-runs", bad);
+            assertEquals(2, e.code());
+            assertTrue(e.err().contains("0 to 10"), e.err());
+        }
+    }
 }

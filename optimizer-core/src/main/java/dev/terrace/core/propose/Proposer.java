@@ -138,9 +138,21 @@ public final class Proposer {
         notes.addAll(picks.notes());
         List<Proposal> out = new ArrayList<>();
         Double inc = incumbent(sur); // computed once: it evaluates the surrogate at every qualifying run
-        Reference ref = picks.reference() == null ? null : reference(sur, picks.reference(), s, inc);
+        Reference ref = null; // the highest-yield recipe found: the search's own, or a pick that beats it
+        if (picks.reference() != null) {
+            List<DesignPoint> cand = new ArrayList<>(picks.points());
+            cand.add(picks.reference());
+            for (DesignPoint q : cand) {
+                Reference r = reference(sur, q, s, inc);
+                if (ref == null || r.yield() > ref.yield()) {
+                    ref = r;
+                }
+            }
+        }
         for (DesignPoint p : picks.points()) {
-            Map<String, Double> rounded = RecipeRounding.round(space, p); // already rounded: this undoes float noise
+            Map<String, Double> rounded = new LinkedHashMap<>(); // picks are already rounded: undo float noise only
+            space.numbers(p).forEach((k, v) -> rounded.put(k,
+                    new java.math.BigDecimal(v).round(new java.math.MathContext(12)).doubleValue()));
             DesignPoint rp = space.encode(rounded, space.categories(p));
             out.add(describe(sur, rp != null ? rp : p, s, mode, rounded, space.categories(p), inc, ranges, ref));
         }

@@ -31,8 +31,15 @@ final class SearchBox {
     private final DesignSpace inner;
     private final boolean narrowed;
     private final List<String> notes;
+    private final java.util.Map<String, Double> held;
 
     private SearchBox(DesignSpace outer, DesignSpace inner, boolean narrowed, List<String> notes) {
+        this(outer, inner, narrowed, notes, java.util.Map.of());
+    }
+
+    private SearchBox(DesignSpace outer, DesignSpace inner, boolean narrowed, List<String> notes,
+                      java.util.Map<String, Double> held) {
+        this.held = java.util.Map.copyOf(held);
         this.outer = outer;
         this.inner = inner;
         this.narrowed = narrowed;
@@ -56,6 +63,7 @@ final class SearchBox {
             return new SearchBox(outer, outer, false, notes);
         }
         List<ParameterSpec> specs = new ArrayList<>();
+        java.util.Map<String, Double> held = new java.util.LinkedHashMap<>();
         for (ParameterSpec p : outer.continuous()) {
             Double lo = ranges.low().get(p.name());
             Double hi = ranges.high().get(p.name());
@@ -85,11 +93,14 @@ final class SearchBox {
                     max = Math.min(p.max(), p.fromUnit(uHi));
                 }
             }
+            if (!(min < max)) {
+                held.put(p.name(), min);
+            }
             specs.add(narrow(p, min, max));
         }
         List<ParameterSpec> all = new ArrayList<>(specs);
         all.addAll(outer.categorical());
-        return new SearchBox(outer, DesignSpace.of(all, outer.limits()), true, notes);
+        return new SearchBox(outer, DesignSpace.of(all, outer.limits()), true, notes, held);
     }
 
     /** A copy of a numeric setting with another box; a box of zero width keeps a sliver inside the campaign box. */
@@ -175,7 +186,9 @@ final class SearchBox {
      * @return the rounded recipe as a point of the campaign's space
      */
     DesignPoint settle(DesignPoint p) {
-        DesignPoint q = outer.encode(RecipeRounding.round(inner, p), inner.categories(p));
+        java.util.Map<String, Double> nums = RecipeRounding.round(inner, p);
+        nums.putAll(held); // a setting held at one value keeps exactly that value, not the sliver around it
+        DesignPoint q = outer.encode(nums, inner.categories(p));
         return q != null ? q : toOuter(p);
     }
 }

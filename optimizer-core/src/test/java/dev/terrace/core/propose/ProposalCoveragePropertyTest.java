@@ -183,6 +183,49 @@ class ProposalCoveragePropertyTest {
         assertTrue(ps.size() == batch || cutShort, ps.size() + " of " + batch + " without a note");
     }
 
+    @Property(tries = 20)
+    void aMarginAroundTheRunsHoldsEverySetting(@ForAll @LongRange(min = 1, max = 1_000_000) long seed)
+            throws Exception {
+        Random r = new Random(seed * 7 + 3);
+        LoadedCampaign lc = generate(seed, false, 14);
+        Campaign c = lc.campaign();
+        double m = r.nextInt(3) == 0 ? 0 : r.nextDouble();
+        ProposeSettings s = ProposeSettings.defaults().withBatch(2).withSeed(seed).withSearch(SMALL).withWithinRuns(m);
+        ProposalSet set = Proposer.propose(lc, NONE, s);
+        Map<String, double[]> unitRange = new LinkedHashMap<>();
+        for (Run run : lc.runLog().runs()) {
+            if (run.ok()) {
+                run.numbers().forEach((k, v) -> {
+                    if (c.parameter(k).isEmpty()) {
+                        return; // an outcome column
+                    }
+                    double u = c.parameter(k).orElseThrow().toUnit(v);
+                    unitRange.merge(k, new double[] {u, u}, (a, b) -> new double[] {Math.min(a[0], b[0]), Math.max(a[1], b[1])});
+                });
+            }
+        }
+        if (unitRange.isEmpty()) {
+            assertTrue(set.notes().stream().anyMatch(n -> n.contains("margin around the runs cannot apply")));
+            return;
+        }
+        for (Proposal p : set.proposals()) {
+            if (!p.keepsLimits()) {
+                continue; // the limits cut the margin box away: the least-violating point is flagged instead
+            }
+            for (Map.Entry<String, Double> e : numbers(c, p).entrySet()) {
+                double[] rr = unitRange.get(e.getKey());
+                double span = rr[1] - rr[0];
+                double u = c.parameter(e.getKey()).orElseThrow().toUnit(e.getValue());
+                assertTrue(u >= rr[0] - m * span - 1e-9 && u <= rr[1] + m * span + 1e-9,
+                        e.getKey() + " at " + u + " outside [" + (rr[0] - m * span) + ", " + (rr[1] + m * span)
+                                + "] with margin " + m);
+                if (m == 0) {
+                    assertTrue(p.beyondRuns().isEmpty(), "margin 0 stays inside the runs: " + p.beyondRuns());
+                }
+            }
+        }
+    }
+
     @Property(tries = 8)
     void atExploreZeroTheTopProposalHasTheHighestPredictedYieldAndSaysWhatOthersTrade(
             @ForAll @LongRange(min = 1, max = 1_000_000) long seed) throws Exception {

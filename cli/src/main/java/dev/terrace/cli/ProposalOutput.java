@@ -109,6 +109,16 @@ final class ProposalOutput {
         }
         ArrayNode notes = root.putArray("notes");
         set.notes().forEach(notes::add);
+        // long logs: which GPs trained on a subset of the runs, and on how many (empty when none)
+        ObjectNode gt = root.putObject("gp_subsets");
+        set.gpSubsets().forEach((name, sub) -> {
+            ObjectNode g = gt.putObject(name);
+            g.put("method", dev.terrace.core.surrogate.TrainingSubset.METHOD);
+            g.put("runs", sub.size());
+            g.put("of", sub.total());
+            g.put("focus_runs", sub.focusRuns());
+            put(g, "cover_radius", sub.coverRadius());
+        });
         return om.writeValueAsString(root);
     }
 

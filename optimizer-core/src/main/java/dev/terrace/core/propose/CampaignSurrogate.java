@@ -17,6 +17,7 @@ import dev.terrace.core.surrogate.GaussianProcess;
 import dev.terrace.core.surrogate.GpSettings;
 import dev.terrace.core.surrogate.Predictive;
 import dev.terrace.core.surrogate.SuccessModel;
+import dev.terrace.core.surrogate.TrainingSubset;
 import dev.terrace.spi.Conditions;
 import dev.terrace.spi.Prediction;
 
@@ -63,12 +64,13 @@ public final class CampaignSurrogate {
     private final List<Run> encodedRuns;
     private final List<String> notes;
     private final int runsUsed;
+    private final Map<String, TrainingSubset> subsets;
 
     private CampaignSurrogate(LoadedCampaign lc, DesignSpace space, ModelChain chain, FitReport fit,
                               Map<String, GaussianProcess> gps, Map<String, Double> priorFill,
                               Map<String, Boolean> physicsPrior, Map<String, ClassModel> classModels,
                               SuccessModel success, List<DesignPoint> runPoints, List<Run> encodedRuns,
-                              List<String> notes, int runsUsed) {
+                              List<String> notes, int runsUsed, Map<String, TrainingSubset> subsets) {
         this.lc = lc;
         this.space = space;
         this.chain = chain;
@@ -82,6 +84,7 @@ public final class CampaignSurrogate {
         this.encodedRuns = encodedRuns;
         this.notes = notes;
         this.runsUsed = runsUsed;
+        this.subsets = Map.copyOf(subsets);
     }
 
     /**
@@ -182,7 +185,7 @@ public final class CampaignSurrogate {
         if (usePhysics && !c.models().isEmpty()) {
             notes.addAll(lc.runLog().runs().size() > PHYSICS_FIT_RUNS
                     ? List.of("growth models fitted on " + PHYSICS_FIT_RUNS + " of the " + lc.runLog().runs().size()
-                    + " runs (a fixed random subset); the Gaussian processes use every run") : List.of());
+                    + " runs (a fixed random subset)") : List.of());
             fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
@@ -212,6 +215,7 @@ public final class CampaignSurrogate {
         Map<String, java.util.concurrent.Callable<ClassModel>> classTasks = new LinkedHashMap<>();
         Map<String, Double> fill = new LinkedHashMap<>();
         Map<String, Boolean> physics = new LinkedHashMap<>();
+        Map<String, TrainingSubset> subsets = new LinkedHashMap<>();
         int used = 0;
         boolean[] usedRun = new boolean[runs.size()];
         for (OutcomeSpec o : c.outcomes()) {
@@ -221,6 +225,7 @@ public final class CampaignSurrogate {
             List<DesignPoint> x = new ArrayList<>();
             List<Double> y = new ArrayList<>();
             List<Double> prior = new ArrayList<>();
+            List<Run> xRuns = new ArrayList<>();
             for (int i = 0; i < runs.size(); i++) {
                 Run r = runs.get(i);
                 if (!r.ok()) {
@@ -231,6 +236,7 @@ public final class CampaignSurrogate {
                     continue;
                 }
                 x.add(pts.get(i));
+                xRuns.add(r);
                 y.add(scaled(o, v.getAsDouble()));
                 prior.add(priorValue(c, o, chainAtRuns.get(i)));
                 usedRun[i] = true;
@@ -246,6 +252,16 @@ public final class CampaignSurrogate {
             double[] pp = null;
             if (anyPhysics) {
                 pp = prior.stream().mapToDouble(v -> Double.isFinite(v) ? v : mean).toArray();
+            }
+            // long logs: the GP trains on a stated subset of the runs (TrainingSubset)
+            TrainingSubset sub = TrainingSubset.select(x, TrainingSubset.focusOnTargets(c.targets(), xRuns),
+                    TrainingSubset.maxRuns(), seed);
+            List<DesignPoint> xs = sub.pick(x);
+            yy = sub.pick(yy);
+            pp = sub.pick(pp);
+            if (sub.isSubset()) {
+                subsets.put(o.name(), sub);
+                notes.add(sub.note(o.name()));
             }
             GpSettings gs = gpSettings;
             if (yy.length > LARGE_LOG_RUNS && gs.hpoStarts() > LARGE_LOG_HPO_STARTS) {
@@ -265,7 +281,8 @@ public final class CampaignSurrogate {
             }
             final GpSettings gsf = gs;
             final double[] ppf = pp;
-            gpTasks.put(o.name(), () -> GaussianProcess.fit(x, yy, ppf, gsf, seed));
+            final double[] yyf = yy;
+            gpTasks.put(o.name(), () -> GaussianProcess.fit(xs, yyf, ppf, gsf, seed));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -316,7 +333,8 @@ public final class CampaignSurrogate {
         } finally {
             pool.shutdownNow();
         }
-        return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used);
+        return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used,
+                subsets);
     }
 
     /** Threads used to fit the independent surrogates (the machines Terrace targets have 2 cores). */
@@ -493,7 +511,7 @@ public final class CampaignSurrogate {
                     physicsPrior.get(o.name()) ? prior : Double.NaN));
         }
         return new CampaignSurrogate(lc, space, chain, fit, next, priorFill, physicsPrior, classModels, success,
-                runPoints, encodedRuns, notes, runsUsed);
+                runPoints, encodedRuns, notes, runsUsed, subsets);
     }
 
     /** @return the campaign; never null */
@@ -534,6 +552,14 @@ public final class CampaignSurrogate {
     /** @return the ok runs with at least one measured outcome that the surrogates used */
     public int runsUsed() {
         return runsUsed;
+    }
+
+    /**
+     * @return the numeric outcomes whose GP trained on a subset of the runs ({@link TrainingSubset}),
+     *         by name; empty when every GP used every run; never null
+     */
+    public Map<String, TrainingSubset> trainingSubsets() {
+        return subsets;
     }
 
     /** @return remarks about data that could not be used; never null */

@@ -117,13 +117,23 @@ public final class Proposals {
      * @param explore     the exploration weight used
      * @param proposals   ranked proposals
      * @param notes       what the grower should know (exclusions, fallbacks, model problems)
+     * @param gpSubsets   numeric outcomes whose Gaussian process trained on a subset of the runs
+     *                    (long logs), by name; empty when every GP used every run
      */
     public record ProposalSet(String campaignId, int runsUsed, long seed, String mode, double explore,
-                              List<Proposal> proposals, List<String> notes) {
+                              List<Proposal> proposals, List<String> notes,
+                              Map<String, dev.terrace.core.surrogate.TrainingSubset> gpSubsets) {
         /** Copies the lists. */
         public ProposalSet {
             proposals = List.copyOf(proposals);
             notes = List.copyOf(notes);
+            gpSubsets = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(gpSubsets));
+        }
+
+        /** A set whose GPs all used every run. */
+        public ProposalSet(String campaignId, int runsUsed, long seed, String mode, double explore,
+                           List<Proposal> proposals, List<String> notes) {
+            this(campaignId, runsUsed, seed, mode, explore, proposals, notes, Map.of());
         }
     }
 }

@@ -161,7 +161,8 @@ public final class Proposer {
         for (int i = 0; i < out.size(); i++) {
             ranked.add(out.get(i).withRank(i + 1));
         }
-        return new ProposalSet(sur.campaign().id(), sur.runsUsed(), s.seed(), mode, s.explore(), ranked, notes);
+        return new ProposalSet(sur.campaign().id(), sur.runsUsed(), s.seed(), mode, s.explore(), ranked, notes,
+                sur.trainingSubsets());
     }
 
     /**
@@ -217,7 +218,8 @@ public final class Proposer {
         for (int i = 0; i < out.size(); i++) {
             ranked.add(out.get(i).withRank(i + 1));
         }
-        return new ProposalSet(sur.campaign().id(), sur.runsUsed(), s.seed(), "ranking", s.explore(), ranked, notes);
+        return new ProposalSet(sur.campaign().id(), sur.runsUsed(), s.seed(), "ranking", s.explore(), ranked, notes,
+                sur.trainingSubsets());
     }
 
     // ------------------------------------------------------------------ scoring

@@ -19,7 +19,8 @@ import java.util.concurrent.atomic.AtomicInteger;
 @Command(name = "bench", mixinStandardHelpOptions = true,
         description = {"Run the benchmarks: evaluations needed on Branin, Hartmann-6 and the virtual chamber",
                 "(invented ground truth) against random search and a Latin hypercube, median over seeds;",
-                "and with --speed, the time and peak memory of 'propose --batch 4' on growing run logs.",
+                "and with --speed, the time and peak memory of 'propose --batch 4' and 'fit' on growing run logs",
+                "and of 'check' on a 100000-row log (child JVMs capped at 2 GB of heap).",
                 "The 'calibration' problem checks the printed yield and 90 %% intervals against the chamber's truth."})
 final class BenchCommand implements Callable<Integer> {
 
@@ -42,7 +43,7 @@ final class BenchCommand implements Callable<Integer> {
     @Option(names = "--speed", description = "Run the speed benchmark instead (whole process, via /usr/bin/time).")
     boolean speed;
 
-    @Option(names = "--sizes", defaultValue = "30,100,300,1000", split = ",",
+    @Option(names = "--sizes", defaultValue = "30,300,1000,3000", split = ",",
             description = "Run-log sizes for --speed (default: ${DEFAULT-VALUE}).")
     List<Integer> sizes;
 

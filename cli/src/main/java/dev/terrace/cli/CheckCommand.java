@@ -35,7 +35,7 @@ final class CheckCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
+        LoadedCampaign lc = LoadedCampaign.openAnySize(campaignFile, Registries.load(global, err));
         print(lc, out, global.quiet);
         for (Diagnostic d : lc.warnings()) {
             err.println(d);

@@ -106,27 +106,20 @@ abstract class FitOptimizer extends FreeParameters {
             double bestVal = Double.POSITIVE_INFINITY;
             double[] bestU = start;
             sigma = startSigma();
+            if (starts.size() > 1 && used.size() > SCREEN_RUNS) {
+                // long logs: rank the starts on a thinned log, then refine only the best on every run
+                double[] best = screenStarts(starts, combo, cf.free);
+                starts = List.of(best);
+            }
             for (double[] s0 : starts) {
-                double[] uu = s0;
-                Map<String, Double> sg = startSigma();
-                for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
-                    uu = minimise(uu, combo, cf.free, sg);
-                    Map<String, Double> next = updateSigma(predictAll(values(combo, cf.free, uu)));
-                    boolean settled = true;
-                    for (String k : next.keySet()) {
-                        if (Math.abs(next.get(k) / sg.get(k) - 1) > 0.05) {
-                            settled = false;
-                        }
-                    }
-                    sg = next;
-                    if (settled && iter > 0) {
-                        break;
-                    }
-                }
+                Object[] res = reweighted(s0, combo, cf.free);
+                double[] uu = (double[]) res[0];
                 double val = minus2LogL(predictAll(values(combo, cf.free, uu)));
                 if (val < bestVal) {
                     bestVal = val;
                     bestU = uu;
+                    @SuppressWarnings("unchecked")
+                    Map<String, Double> sg = (Map<String, Double>) res[1];
                     sigma = sg;
                 }
             }
@@ -136,6 +129,68 @@ abstract class FitOptimizer extends FreeParameters {
         }
         cf.u = u;
         cf.sigma = sigma;
+    }
+
+    /**
+     * Above this many runs the random starts of a fit are ranked on a thinned log (every k-th run,
+     * at most this many) and only the best start is refined on every run: with hundreds of runs the
+     * ranking of starts is already settled on a few hundred, while each refinement costs time in
+     * proportion to the runs. Own choice (speed, issue #11), not a published value.
+     */
+    static final int SCREEN_RUNS = 150;
+
+    /** The reweighted minimisation from one start: {u, sigma}. */
+    Object[] reweighted(double[] s0, Map<String, Double> combo, List<ModelParameter> free) {
+        double[] uu = s0;
+        Map<String, Double> sg = startSigma();
+        for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
+            uu = minimise(uu, combo, free, sg);
+            Map<String, Double> next = updateSigma(predictAll(values(combo, free, uu)));
+            boolean settled = true;
+            for (String k : next.keySet()) {
+                if (Math.abs(next.get(k) / sg.get(k) - 1) > 0.05) {
+                    settled = false;
+                }
+            }
+            sg = next;
+            if (settled && iter > 0) {
+                break;
+            }
+        }
+        return new Object[] {uu, sg};
+    }
+
+    /**
+     * Runs every start on every k-th used run (k chosen so that at most {@link #SCREEN_RUNS} remain)
+     * and returns the fitted point of the start with the lowest −2 ln L there. The thinned log is a
+     * fit problem of its own, so candidates fitted in parallel never see each other's data.
+     */
+    double[] screenStarts(List<double[]> starts, Map<String, Double> combo, List<ModelParameter> free) {
+        int k = (used.size() + SCREEN_RUNS - 1) / SCREEN_RUNS;
+        List<Run> thinRuns = new ArrayList<>();
+        for (int i = 0; i < used.size(); i += k) {
+            thinRuns.add(used.get(i));
+        }
+        FitProblem thin = new FitProblem(c, thinRuns, model, upstream, new SplittableRandom(0));
+        thin.shared.putAll(shared);
+        thin.sharedReason.putAll(sharedReason);
+        thin.maxEvaluations = maxEvaluations;
+        thin.intervals = intervals;
+        thin.collect(dev.terrace.spi.ParameterValues.defaults(params));
+        if (thin.used.size() < MIN_RUNS || thin.numericOutcomes.isEmpty() && !thin.hasClass) {
+            return starts.get(0);
+        }
+        double[] best = starts.get(0);
+        double bestVal = Double.POSITIVE_INFINITY;
+        for (double[] s0 : starts) {
+            double[] uu = (double[]) thin.reweighted(s0, combo, free)[0];
+            double val = thin.minus2LogL(thin.predictAll(thin.values(combo, free, uu)));
+            if (val < bestVal) {
+                bestVal = val;
+                best = uu;
+            }
+        }
+        return best;
     }
 
     double[] minimise(double[] start, Map<String, Double> combo, List<ModelParameter> free,

@@ -55,6 +55,8 @@ abstract class FreeParameters extends FitLikelihood {
     double[] outputs(ParameterValues v) {
         Prediction[] preds = predictAll(v);
         double[] out = new double[obs.size()];
+        // one scale per outcome, computed once (meanAbs is a pass over every observation)
+        Map<String, Double> scales = new java.util.HashMap<>();
         for (int i = 0; i < obs.size(); i++) {
             Obs o = obs.get(i);
             if (o.isClass()) {
@@ -62,7 +64,7 @@ abstract class FreeParameters extends FitLikelihood {
             } else {
                 double f = predictedScaled(preds[o.run()], o.outcome());
                 double s = o.outcome().scale() == Scale.LOG ? LOG_NOISE_START
-                        : LINEAR_NOISE_START * meanAbs(o.outcome().name());
+                        : scales.computeIfAbsent(o.outcome().name(), n -> LINEAR_NOISE_START * meanAbs(n));
                 out[i] = Double.isFinite(f) ? f / s : 0;
             }
         }
@@ -105,16 +107,16 @@ abstract class FreeParameters extends FitLikelihood {
             maxNorm = Math.max(maxNorm, norms[k]);
         }
         int sigmas = numericOutcomes.size();
+        double effective = 0;
+        for (Obs o : obs) {
+            // a class label or a censored value says less than a measured number
+            effective += o.isClass() || o.isCensored() ? CLASS_OBSERVATION_WEIGHT : 1;
+        }
         for (int k = 0; k < all.size(); k++) {
             ModelParameter p = all.get(k);
             if (!(norms[k] > MIN_SENSITIVITY * Math.max(maxNorm, 1e-300)) || norms[k] == 0) {
                 cf.heldReason.put(p.name(), "these runs do not depend on it");
                 continue;
-            }
-            double effective = 0;
-            for (Obs o : obs) {
-                // a class label or a censored value says less than a measured number
-                effective += o.isClass() || o.isCensored() ? CLASS_OBSERVATION_WEIGHT : 1;
             }
             if (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
                     || effective < OBSERVATIONS_PER_PARAMETER * (free.size() + 1)) {

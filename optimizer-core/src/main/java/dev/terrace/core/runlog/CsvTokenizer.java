@@ -93,21 +93,43 @@ final class CsvTokenizer {
      */
     static Result tokenize(String text) {
         CsvTokenizer t = new CsvTokenizer(text);
-        t.run();
+        for (Row r = t.next(); r != null; r = t.next()) {
+            t.rows.add(r);
+        }
         return new Result(t.rows, t.problems);
     }
 
-    private void run() {
+    /**
+     * A tokenizer that hands out one row at a time ({@link #next()}), so that a long log is never
+     * held as cells all at once.
+     *
+     * @param text the file contents
+     * @return the tokenizer; never null
+     */
+    static CsvTokenizer over(String text) {
+        return new CsvTokenizer(text);
+    }
+
+    /**
+     * @return the next row, skipping comment and blank lines, or null at the end of the text
+     */
+    Row next() {
         while (!atEnd()) {
             if (peek() == '#' || restOfLineIsBlank()) {
                 skipRestOfLine();
             } else {
-                readRow();
+                return readRow();
             }
         }
+        return null;
     }
 
-    private void readRow() {
+    /** @return the quoting problems met so far, in file order; never null */
+    List<Problem> problems() {
+        return List.copyOf(problems);
+    }
+
+    private Row readRow() {
         int rowLine = line;
         List<Cell> cells = new ArrayList<>();
         boolean broken = false;
@@ -151,8 +173,7 @@ final class CsvTokenizer {
                     line = qLine;
                     col = qCol;
                     int endCol = skipRestOfLine();
-                    rows.add(new Row(rowLine, withPlaceholder(cells, qLine, qCol), qLine, endCol, true));
-                    return;
+                    return new Row(rowLine, withPlaceholder(cells, qLine, qCol), qLine, endCol, true);
                 }
                 skipBlanks();
                 if (!atEnd() && !atEol() && peek() != ',') {
@@ -197,7 +218,7 @@ final class CsvTokenizer {
         if (!atEnd()) {
             consumeEol();
         }
-        rows.add(new Row(rowLine, cells, endLine, endCol, broken));
+        return new Row(rowLine, cells, endLine, endCol, broken);
     }
 
     private static List<Cell> withPlaceholder(List<Cell> cells, int line, int column) {

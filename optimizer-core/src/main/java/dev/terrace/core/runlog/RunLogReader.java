@@ -134,7 +134,9 @@ public final class RunLogReader {
             throw new InputException(Diagnostic.error(file, 0, 0,
                     "the run log cannot be read: permission denied"));
         }
-        return parse(campaign, file, decodeUtf8(file, bytes));
+        String text = decodeUtf8(file, bytes);
+        bytes = null; // a long log: let the bytes go before the rows are built
+        return parse(campaign, file, text);
     }
 
     /**
@@ -197,16 +199,14 @@ public final class RunLogReader {
 
     private static RunLog parse(Campaign campaign, Path file, String text, boolean candidates) throws InputException {
         List<Diagnostic> diags = new ArrayList<>();
-        CsvTokenizer.Result tokens = CsvTokenizer.tokenize(text);
-        for (CsvTokenizer.Problem p : tokens.problems()) {
-            diags.add(Diagnostic.error(file, p.line(), p.column(), p.message()));
-        }
+        // rows are tokenized and checked one at a time (streaming): a long log is never held as cells
+        CsvTokenizer tokens = CsvTokenizer.over(text);
+        CsvTokenizer.Row headerRow = tokens.next();
         List<Run> runs = new ArrayList<>();
-        if (tokens.rows().isEmpty()) {
+        if (headerRow == null) {
             diags.add(Diagnostic.error(file, 1, 1, "the run log has no header row; expected a first line"
                     + " such as: " + RunLogWriter.headerLine(campaign)));
         } else {
-            CsvTokenizer.Row headerRow = tokens.rows().get(0);
             List<Diagnostic> headerDiags = new ArrayList<>();
             List<Column> header = readHeader(campaign, file, headerRow, headerDiags, candidates);
             boolean foreign = header.stream().allMatch(c -> c.kind() == Kind.SKIPPED);
@@ -225,7 +225,7 @@ public final class RunLogReader {
             if (!headerRow.broken() && !foreign) {
                 Map<String, Integer> firstLine = new HashMap<>();
                 int index = 0;
-                for (CsvTokenizer.Row row : tokens.rows().subList(1, tokens.rows().size())) {
+                for (CsvTokenizer.Row row = tokens.next(); row != null; row = tokens.next()) {
                     index++;
                     Run run = readRow(campaign, file, header, row, firstLine, diags,
                             candidates && header.stream().noneMatch(c -> c.kind() == Kind.RUN_ID) ? "C" + index : null);
@@ -234,7 +234,17 @@ public final class RunLogReader {
                     }
                 }
             }
+            while (tokens.next() != null) {
+                // rows not checked (broken or foreign header): still collect their quoting problems
+            }
         }
+        // quoting problems first, as the diagnostics of a cell at the same place follow them
+        List<Diagnostic> quoting = new ArrayList<>();
+        for (CsvTokenizer.Problem p : tokens.problems()) {
+            quoting.add(Diagnostic.error(file, p.line(), p.column(), p.message()));
+        }
+        quoting.addAll(diags);
+        diags = quoting;
         diags.sort(Comparator.comparingInt(Diagnostic::line).thenComparingInt(Diagnostic::column));
         if (diags.stream().anyMatch(Diagnostic::isError)) {
             throw new InputException(diags);
@@ -347,7 +357,7 @@ public final class RunLogReader {
                     + " (two commas in a row) when a value was not measured"));
             return null;
         }
-        int before = errorCount(diags);
+        int mark = diags.size(); // only this row's diagnostics are counted: a pass per row over all would be quadratic
         String runId = autoId;
         Map<String, Double> numbers = new LinkedHashMap<>();
         Map<String, String> categories = new LinkedHashMap<>();
@@ -434,7 +444,7 @@ public final class RunLogReader {
                     break; // unknown or duplicated column, reported with the header
             }
         }
-        if (runId == null || errorCount(diags) > before) {
+        if (runId == null || errorCount(diags.subList(mark, diags.size())) > 0) {
             return null;
         }
         return new Run(runId, numbers, categories, status, date, proposal, notes, row.line(), censored);

@@ -51,13 +51,24 @@ import java.util.Set;
  *       for an outcome no model predicts.</li>
  *   <li>{@value #GP}: {@link CampaignSurrogate} with the physics switched off (a Gaussian process
  *       around the training mean, classifiers from uniform priors).</li>
- *   <li>{@value #PHYSICS_GP}: {@link CampaignSurrogate} as {@code terrace propose} uses it: the
- *       GP on the residual of the growth models. Its chain is also the {@value #PHYSICS}
- *       surrogate of the fold, so the models are fitted once per fold.</li>
+ *   <li>{@value #PHYSICS_GP}, the <b>proposal surrogate</b> ({@link #PROPOSAL}): {@link
+ *       CampaignSurrogate#build(LoadedCampaign, PluginRegistry, boolean, long)} with the physics on,
+ *       exactly as {@code terrace propose} builds it by default: the GP on the residual of the
+ *       growth models (the GP alone when the campaign lists no models, as in propose). Its chain is
+ *       also the {@value #PHYSICS} surrogate of the fold, so the models are fitted once per fold.
+ *       It is reported first; the others are comparisons.</li>
  *   <li>{@value #MEAN}: the trivial predictor, a Gaussian with the training runs' mean and sample
  *       variance (numeric outcomes), or the training class frequencies with add-one (Laplace)
- *       smoothing (class outcomes). It is the reference of the MSLL and of the verdict.</li>
+ *       smoothing (class outcomes). It is the reference of the MSLL, and the baseline the proposal
+ *       surrogate must beat in the verdict.</li>
  * </ul>
+ *
+ * <p><b>Verdict.</b> Each outcome's verdict opens with the proposal surrogate: its RMSE (log loss
+ * for classes) against the trivial predictor's, and for numeric outcomes how many held-out runs its
+ * 90 % intervals cover ("11 of 13"). Coverage is read with a one-sided exact binomial test: with n
+ * held-out runs and honest intervals the count inside is Binomial(n, 0.9), and a count whose lower
+ * (or upper) tail probability is below {@link #COVERAGE_TAIL} is called implausibly low (too narrow)
+ * or implausibly high (too wide). The best surrogate and the physics prior follow as comparisons.
  *
  * <p><b>Metrics</b> (numeric outcomes on their fitting scale, log10 for {@code scale: log}): RMSE
  * of the predictive mean; coverage of the central 90 % interval of a new measurement, mean ± {@link
@@ -84,10 +95,16 @@ public final class Validation {
     public static final String GP = "gp";
     /** Key of the Gaussian process on the growth models' residual. */
     public static final String PHYSICS_GP = "physics+gp";
+    /** Key of the surrogate {@code terrace propose} builds (growth models + GP on their residual). */
+    public static final String PROPOSAL = PHYSICS_GP;
+    /** Plain name of {@link #PROPOSAL} in reports. */
+    public static final String PROPOSAL_LABEL = "proposal surrogate";
     /** Key of the trivial predictor (training mean and variance, or class frequencies). */
     public static final String MEAN = "mean";
-    /** The three surrogates in report order. */
+    /** The three surrogates, in the order they are scored. */
     public static final List<String> SURROGATES = List.of(PHYSICS, GP, PHYSICS_GP);
+    /** Report order: the proposal surrogate first, then the comparisons, then the trivial predictor. */
+    public static final List<String> REPORT_ORDER = List.of(PROPOSAL, PHYSICS, GP, MEAN);
     /**
      * Fewest ok runs with a measured outcome for a validation, and fewest ok runs measuring an
      * outcome for that outcome to be validated: holding one out leaves two, the least that gives a
@@ -448,10 +465,14 @@ public final class Validation {
             if (scores.isEmpty()) {
                 continue;
             }
-            OutcomeValidation ov = new OutcomeValidation(o.name(), scaleName(o), scores, parity);
+            String proposal = proposalVerdict(o, new OutcomeValidation(o.name(), scaleName(o), scores, parity));
+            OutcomeValidation ov = new OutcomeValidation(o.name(), scaleName(o), scores, parity, proposal);
             outs.add(ov);
             Optional<String> best = best(ov);
             best.ifPresent(b -> bestByOutcome.put(o.name(), b));
+            if (!proposal.isEmpty()) {
+                outcomeLines.add(proposal);
+            }
             outcomeLines.addAll(verdict(c, o, ov, hasModels, physicsCovers.contains(o.name()), m.get(MEAN).size()));
         }
 
@@ -739,6 +760,66 @@ public final class Validation {
     }
 
     // ------------------------------------------------------------------ verdict
+
+    /**
+     * The verdict on the proposal surrogate for one outcome: whether it beats the trivial predictor
+     * and, for numeric outcomes, its 90 % coverage with counts and the one-sided binomial reading
+     * ({@link #coverageReading}).
+     *
+     * @param o  the outcome
+     * @param ov its scores
+     * @return the line; empty when the proposal surrogate could not predict the outcome
+     */
+    static String proposalVerdict(OutcomeSpec o, OutcomeValidation ov) {
+        Optional<Score> ps = ov.score(PROPOSAL);
+        Optional<Score> ms = ov.score(MEAN);
+        if (ps.isEmpty() || ms.isEmpty()) {
+            return ps.isEmpty() ? PROPOSAL_LABEL + " (" + PROPOSAL + "): could not predict " + o.name()
+                    + " in any fold; see the fold failures" : "";
+        }
+        Score p = ps.get();
+        Score m = ms.get();
+        boolean cls = o.isClass();
+        String metric = cls ? "log loss" : "RMSE";
+        String unit = cls ? " nats" : o.scale() == Scale.LOG ? " log10" : (o.unit().symbol().isEmpty() ? ""
+                : " " + o.unit().symbol());
+        boolean beats = error(p) < NO_BETTER_THAN_MEAN * error(m);
+        String base = cls ? "the class frequencies" : "the training mean";
+        StringBuilder line = new StringBuilder(PROPOSAL_LABEL + " (" + PROPOSAL + ", as terrace propose builds it)"
+                + " on " + o.name() + ": ");
+        if (cls) {
+            line.append("most likely class right for ").append(p.hits()).append(" of ").append(p.n())
+                    .append(" held-out runs; ");
+        } else {
+            line.append(coverageReading(p)).append("; ");
+        }
+        line.append(beats ? "beats " + base : "does not beat " + base).append(" (").append(metric).append(' ')
+                .append(fmt(error(p))).append(" vs ").append(fmt(error(m))).append(unit).append(')');
+        return line.toString();
+    }
+
+    /**
+     * "90 % intervals cover k of n held-out runs", with the one-sided binomial reading of k: under
+     * honest intervals k ~ Binomial(n, 0.9); a tail probability below {@link #COVERAGE_TAIL} is
+     * called implausibly low or high for n.
+     */
+    static String coverageReading(Score s) {
+        int k = s.hits();
+        int n = s.n();
+        String line = "90 % intervals cover " + k + " of " + n + " held-out run" + (n == 1 ? "" : "s");
+        double low = binomialCdf(k, n, 0.9);
+        double high = k > 0 ? 1 - binomialCdf(k - 1, n, 0.9) : 1;
+        if (low < COVERAGE_TAIL) {
+            line += " (implausibly low for " + n + " runs: one-sided binomial P(X <= " + k + ") = " + fmt(low)
+                    + " < " + fmt(COVERAGE_TAIL) + "; about " + Math.round(0.9 * n) + " expected, intervals too narrow)";
+        } else if (high < COVERAGE_TAIL) {
+            line += " (implausibly high for " + n + " runs: one-sided binomial P(X >= " + k + ") = " + fmt(high)
+                    + " < " + fmt(COVERAGE_TAIL) + "; about " + Math.round(0.9 * n) + " expected, intervals too wide)";
+        } else {
+            line += " (plausible for " + n + " runs by a one-sided binomial check)";
+        }
+        return line;
+    }
 
     /** The surrogate with the lowest RMSE (numeric) or log loss (classes); the first in report order on a tie. */
     static Optional<String> best(OutcomeValidation ov) {

@@ -330,6 +330,23 @@ class ValidationTest {
     }
 
     @Test
+    void proposalCoverageReadingNamesCountsAndTheOneSidedBinomialTails() {
+        // reference library: Commons Math binomial distribution (tails of Binomial(n, 0.9))
+        BinomialDistribution b13 = new BinomialDistribution(null, 13, 0.9);
+        String low = Validation.coverageReading(Score.numeric(13, 0.1, 8 / 13.0, -1));
+        assertTrue(low.startsWith("90 % intervals cover 8 of 13 held-out runs (implausibly low for 13 runs"), low);
+        assertTrue(low.contains("P(X <= 8) = " + Validation.fmt(b13.cumulativeProbability(8))), low);
+        String ok = Validation.coverageReading(Score.numeric(13, 0.1, 11 / 13.0, -1));
+        assertEquals("90 % intervals cover 11 of 13 held-out runs (plausible for 13 runs by a one-sided binomial"
+                + " check)", ok);
+        // 40 of 40: P(X >= 40) = 0.9^40 = 0.0148 < 0.05, too many inside for honest 90 % intervals
+        BinomialDistribution b40 = new BinomialDistribution(null, 40, 0.9);
+        String high = Validation.coverageReading(Score.numeric(40, 0.1, 1.0, -1));
+        assertTrue(high.contains("implausibly high for 40 runs"), high);
+        assertTrue(high.contains("P(X >= 40) = " + Validation.fmt(1 - b40.cumulativeProbability(39))), high);
+    }
+
+    @Test
     void scoresRejectMetricsOfTheWrongKindOrOutOfRange() {
         assertThrows(IllegalArgumentException.class, () -> new Score(3, 0.1, 0.9, -1, 0.5, Double.NaN));
         assertThrows(IllegalArgumentException.class, () -> Score.numeric(3, Double.POSITIVE_INFINITY, 0.9, -1));

@@ -84,8 +84,9 @@ final class MapCommand implements Callable<Integer> {
     int grid;
 
     @Option(names = "--temperature-uncertainty", paramLabel = "K", defaultValue = "0",
-            description = {"Standard deviation in K of a thermocouple error that shifts every temperature setting",
-                    "together; the yield is averaged over it (default: ${DEFAULT-VALUE}, the plain map)."})
+            description = {"Standard deviation in K (0 to " + (int) OptionRanges.MAX_TEMPERATURE_UNCERTAINTY_K + ") of a thermocouple error that",
+                    "shifts every temperature setting together; the yield is averaged over it (default: ${DEFAULT-VALUE},",
+                    "the plain map)."})
     double temperatureUncertainty;
 
     @Option(names = "--pareto", paramLabel = "COST",
@@ -99,13 +100,7 @@ final class MapCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         CommandLine cl = spec.commandLine();
-        if (grid < WindowMap.MIN_GRID || grid > WindowMap.MAX_GRID) {
-            throw new CommandLine.ParameterException(cl, "--grid must be " + WindowMap.MIN_GRID + " to "
-                    + WindowMap.MAX_GRID + " cells per axis, found " + grid);
-        }
-        if (!(temperatureUncertainty >= 0) || !Double.isFinite(temperatureUncertainty)) {
-            throw new CommandLine.ParameterException(cl, "--temperature-uncertainty must be a number of kelvin >= 0");
-        }
+        // --grid and --temperature-uncertainty are range-checked before the command runs (OptionRanges)
         if (out != null) {
             String name = out.getFileName().toString().toLowerCase(Locale.ROOT);
             if (!name.endsWith(".png") && !name.endsWith(".svg")) {

@@ -266,14 +266,15 @@ public record Journal(Path file, List<JournalEntry> entries, List<Diagnostic> wa
      *
      * @param lc   the campaign the batch was made for; never null
      * @param set  the batch; never null
-     * @param time when it was made; never null
+     * @param time when it was made (kept to the second); never null
      * @return the journal file; never null
      * @throws IOException as {@link #append}, or when the inputs cannot be read for their checksums
      */
     public static Path appendBatch(LoadedCampaign lc, ProposalSet set, Instant time) throws IOException {
         Objects.requireNonNull(lc, "lc");
         Path file = lc.campaign().journal();
-        append(file, JournalEntry.of(set, time, sha256(lc.campaign().file()), sha256(lc.runLog().file())));
+        append(file, JournalEntry.of(set, time.truncatedTo(java.time.temporal.ChronoUnit.SECONDS),
+                sha256(lc.campaign().file()), sha256(lc.runLog().file())));
         return file;
     }
 

@@ -106,13 +106,21 @@ abstract class FitOptimizer extends FreeParameters {
             double bestVal = Double.POSITIVE_INFINITY;
             double[] bestU = start;
             sigma = startSigma();
-            if (starts.size() > 1 && used.size() > SCREEN_RUNS) {
-                // long logs: rank the starts on a thinned log, then refine only the best on every run
-                double[] best = screenStarts(starts, combo, cf.free);
-                starts = List.of(best);
+            Map<String, Double> warmSigma = null;
+            if (used.size() > SCREEN_RUNS) {
+                // long logs: fit from every start on a thinned log, then refine only the best on every
+                // run from there (a small trust region and the thinned log's noise levels)
+                Object[] best = screenStarts(starts, combo, cf.free);
+                starts = List.of((double[]) best[0]);
+                @SuppressWarnings("unchecked")
+                Map<String, Double> thinSigma = (Map<String, Double>) best[1];
+                Map<String, Double> ws = startSigma();
+                thinSigma.forEach(ws::replace);
+                warmSigma = ws;
             }
             for (double[] s0 : starts) {
-                Object[] res = reweighted(s0, combo, cf.free);
+                Object[] res = warmSigma != null ? reweighted(s0, combo, cf.free, warmSigma, WARM_RADIUS_FRACTION)
+                        : reweighted(s0, combo, cf.free, startSigma(), COLD_RADIUS_FRACTION);
                 double[] uu = (double[]) res[0];
                 double val = minus2LogL(predictAll(values(combo, cf.free, uu)));
                 if (val < bestVal) {
@@ -132,19 +140,35 @@ abstract class FitOptimizer extends FreeParameters {
     }
 
     /**
-     * Above this many runs the random starts of a fit are ranked on a thinned log (every k-th run,
-     * at most this many) and only the best start is refined on every run: with hundreds of runs the
-     * ranking of starts is already settled on a few hundred, while each refinement costs time in
-     * proportion to the runs. Own choice (speed, issue #11), not a published value.
+     * Above this many runs a fit first runs from each start on a thinned log (every k-th run, at
+     * most this many) and then refines only the best result on every run: with hundreds of runs the
+     * ranking of starts and the rough optimum are already settled on a few hundred, while each
+     * evaluation on the whole log costs time in proportion to the runs. The estimate reported is the
+     * refinement on every run. Own choice (speed, issue #11), not a published value.
      */
     static final int SCREEN_RUNS = 150;
 
+    /**
+     * Initial trust-region radius of the direct search from a cold start, as a fraction of each
+     * parameter's range: a quarter, so the first steps explore the range.
+     */
+    static final double COLD_RADIUS_FRACTION = 0.25;
+
+    /**
+     * Initial trust-region radius when the start is the optimum of the thinned log ({@link #screenStarts})
+     * and only refined on every run: a fortieth of the range, ten times smaller than from a cold start,
+     * since the thinned optimum already lies close (BOBYQA's trust region still grows if it must).
+     * Own choice (speed, issue #11).
+     */
+    static final double WARM_RADIUS_FRACTION = 0.025;
+
     /** The reweighted minimisation from one start: {u, sigma}. */
-    Object[] reweighted(double[] s0, Map<String, Double> combo, List<ModelParameter> free) {
+    Object[] reweighted(double[] s0, Map<String, Double> combo, List<ModelParameter> free,
+                        Map<String, Double> sigma0, double radiusFraction) {
         double[] uu = s0;
-        Map<String, Double> sg = startSigma();
+        Map<String, Double> sg = sigma0;
         for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
-            uu = minimise(uu, combo, free, sg);
+            uu = minimise(uu, combo, free, sg, radiusFraction);
             Map<String, Double> next = updateSigma(predictAll(values(combo, free, uu)));
             boolean settled = true;
             for (String k : next.keySet()) {
@@ -162,10 +186,11 @@ abstract class FitOptimizer extends FreeParameters {
 
     /**
      * Runs every start on every k-th used run (k chosen so that at most {@link #SCREEN_RUNS} remain)
-     * and returns the fitted point of the start with the lowest −2 ln L there. The thinned log is a
-     * fit problem of its own, so candidates fitted in parallel never see each other's data.
+     * and returns the fitted point of the start with the lowest −2 ln L there with its noise levels
+     * ({u, sigma}). The thinned log is a fit problem of its own, so candidates fitted in parallel never
+     * see each other's data.
      */
-    double[] screenStarts(List<double[]> starts, Map<String, Double> combo, List<ModelParameter> free) {
+    Object[] screenStarts(List<double[]> starts, Map<String, Double> combo, List<ModelParameter> free) {
         int k = (used.size() + SCREEN_RUNS - 1) / SCREEN_RUNS;
         List<Run> thinRuns = new ArrayList<>();
         for (int i = 0; i < used.size(); i += k) {
@@ -178,16 +203,16 @@ abstract class FitOptimizer extends FreeParameters {
         thin.intervals = intervals;
         thin.collect(dev.terrace.spi.ParameterValues.defaults(params));
         if (thin.used.size() < MIN_RUNS || thin.numericOutcomes.isEmpty() && !thin.hasClass) {
-            return starts.get(0);
+            return new Object[] {starts.get(0), startSigma()};
         }
-        double[] best = starts.get(0);
+        Object[] best = {starts.get(0), startSigma()};
         double bestVal = Double.POSITIVE_INFINITY;
         for (double[] s0 : starts) {
-            double[] uu = (double[]) thin.reweighted(s0, combo, free)[0];
-            double val = thin.minus2LogL(thin.predictAll(thin.values(combo, free, uu)));
+            Object[] res = thin.reweighted(s0, combo, free, thin.startSigma(), COLD_RADIUS_FRACTION);
+            double val = thin.minus2LogL(thin.predictAll(thin.values(combo, free, (double[]) res[0])));
             if (val < bestVal) {
                 bestVal = val;
-                best = uu;
+                best = res;
             }
         }
         return best;
@@ -195,6 +220,11 @@ abstract class FitOptimizer extends FreeParameters {
 
     double[] minimise(double[] start, Map<String, Double> combo, List<ModelParameter> free,
                       Map<String, Double> sigma) {
+        return minimise(start, combo, free, sigma, COLD_RADIUS_FRACTION);
+    }
+
+    double[] minimise(double[] start, Map<String, Double> combo, List<ModelParameter> free,
+                      Map<String, Double> sigma, double radiusFraction) {
         int d = start.length;
         double[] lo = new double[d];
         double[] hi = new double[d];
@@ -220,7 +250,7 @@ abstract class FitOptimizer extends FreeParameters {
         }
         double radius = Double.POSITIVE_INFINITY;
         for (int i = 0; i < d; i++) {
-            radius = Math.min(radius, (hi[i] - lo[i]) / 4);
+            radius = Math.min(radius, (hi[i] - lo[i]) * radiusFraction);
         }
         double[] bestX = start.clone();
         double[] bestF = {nll(start, combo, free, sigma)};

@@ -69,7 +69,7 @@ public final class SpeedBench {
 
     private static String measureAll(Path jar, Path dir, List<Integer> sizes, PrintWriter log) throws Exception {
         StringBuilder sb = new StringBuilder();
-        sb.append(String.format(Locale.ROOT, "%-8s %8s %10s %14s %16s%n", "command", "runs", "wall s",
+        sb.append(String.format(Locale.ROOT, "%-8s %8s %10s %14s %18s%n", "command", "runs", "wall s",
                 "peak RSS MB", "x 30-run propose"));
         Path largest = null;
         Double base = null;
@@ -102,7 +102,7 @@ public final class SpeedBench {
     }
 
     private static String row(String cmd, int n, double[] m, Double base) {
-        return String.format(Locale.ROOT, "%-8s %8d %10.2f %14.0f %16s%n", cmd, n, m[0], m[1] / 1024,
+        return String.format(Locale.ROOT, "%-8s %8d %10.2f %14.0f %18s%n", cmd, n, m[0], m[1] / 1024,
                 base == null ? "-" : String.format(Locale.ROOT, "%.1f", m[0] / base));
     }
 

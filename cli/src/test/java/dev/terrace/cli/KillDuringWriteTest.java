@@ -93,7 +93,7 @@ class KillDuringWriteTest {
 
     private static void check(Path dir, Random rnd, int kills, String target, String... args) throws Exception {
         Path out = dir.resolve(target);
-        List<String> known = List.of("campaign.yaml", "runs.csv", "child-err.txt", "out.html", "out.json",
+        List<String> known = List.of("campaign.yaml", "runs.csv", "journal.jsonl", "child-err.txt", "out.html", "out.json",
                 "proposals.json", "report.html", "window-map.png");
         List<String> before = otherNames(dir, known);
         List<byte[]> seen = new ArrayList<>();

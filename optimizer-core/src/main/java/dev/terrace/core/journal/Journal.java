@@ -34,9 +34,11 @@ import java.util.concurrent.ConcurrentHashMap;
  * A campaign's proposal journal: one line of JSON per batch {@code terrace propose} made, in the
  * order they were made (JSON Lines).
  *
- * <p><b>Appending.</b> A batch is appended as one line in a single write to a file opened for
- * appending ({@code O_APPEND}), under an exclusive lock on the journal ({@link FileChannel#lock()})
- * and a lock within this process, then flushed to the disk ({@link FileChannel#force}). Earlier
+ * <p><b>Appending.</b> A batch is written as one line at the end of the file in a single write,
+ * under an exclusive lock on the journal ({@link FileChannel#lock()}, taken by every Terrace that
+ * appends) and a lock within this process, then flushed to the disk ({@link FileChannel#force}).
+ * The lock, the check of the last byte and the write use one channel: on POSIX systems closing any
+ * other descriptor of the file would release the process's lock. Earlier
  * lines are never rewritten or moved: appending one line is the smallest change that can be made,
  * and no crash can reach a byte that was already there. Rewriting the whole file through a
  * temporary copy would also be atomic, but would need a lock on a second file (the renamed file
@@ -228,20 +230,23 @@ public record Journal(Path file, List<JournalEntry> entries, List<Diagnostic> wa
         byte[] line = (JournalCodec.toLine(entry) + "\n").getBytes(StandardCharsets.UTF_8);
         boolean created = !Files.exists(real);
         synchronized (LOCAL_LOCKS.computeIfAbsent(real, k -> new Object())) {
-            try (FileChannel ch = FileChannel.open(real, StandardOpenOption.CREATE, StandardOpenOption.WRITE,
-                    StandardOpenOption.APPEND);
+            // one channel for the lock, the read and the write: on POSIX systems closing any other
+            // descriptor of the file would release this process's lock (FileLock's notes)
+            try (FileChannel ch = FileChannel.open(real, StandardOpenOption.CREATE, StandardOpenOption.READ,
+                    StandardOpenOption.WRITE);
                  FileLock lock = ch.lock()) {
                 byte[] out = line;
                 long size = ch.size();
-                if (size > 0 && lastByte(real, size) != '\n') {
+                if (size > 0 && lastByte(ch, size) != '\n') {
                     // a line cut short by a crash: end it, so it stays one ignored line
                     out = new byte[line.length + 1];
                     out[0] = '\n';
                     System.arraycopy(line, 0, out, 1, line.length);
                 }
                 ByteBuffer buf = ByteBuffer.wrap(out);
+                long at = size;
                 while (buf.hasRemaining()) {
-                    ch.write(buf);
+                    at += ch.write(buf, at);
                 }
                 ch.force(true);
             } catch (AccessDeniedException e) {
@@ -292,12 +297,12 @@ public record Journal(Path file, List<JournalEntry> entries, List<Diagnostic> wa
         }
     }
 
-    private static byte lastByte(Path file, long size) throws IOException {
-        try (FileChannel r = FileChannel.open(file, StandardOpenOption.READ)) {
-            ByteBuffer one = ByteBuffer.allocate(1);
-            r.read(one, size - 1);
-            return one.get(0);
+    private static byte lastByte(FileChannel ch, long size) throws IOException {
+        ByteBuffer one = ByteBuffer.allocate(1);
+        while (one.hasRemaining() && ch.read(one, size - 1) >= 0) {
+            // a read of one byte at a position inside the file returns it
         }
+        return one.get(0);
     }
 
     private static void syncFolder(Path dir) {

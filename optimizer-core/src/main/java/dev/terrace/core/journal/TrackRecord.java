@@ -210,7 +210,14 @@ public record TrackRecord(List<Grown> grown, List<Diagnostic> warnings) {
         }
     }
 
-    private static String format(double v) {
-        return v == Math.rint(v) && Math.abs(v) < 1e15 ? String.valueOf((long) v) : String.valueOf(v);
+    /** The shortest decimal that round-trips, as a grower writes it: 250, 0.0278, 1e8, 2.5e-6. */
+    static String format(double v) {
+        java.math.BigDecimal b = new java.math.BigDecimal(Double.toString(v)).stripTrailingZeros();
+        double a = Math.abs(v);
+        if (a != 0 && (a < 1e-3 || a >= 1e6)) {
+            int exp = b.precision() - b.scale() - 1;
+            return b.movePointLeft(exp).stripTrailingZeros().toPlainString() + "e" + exp;
+        }
+        return b.toPlainString();
     }
 }

@@ -58,7 +58,8 @@ import java.util.regex.Pattern;
  *
  * <p><b>Concurrent records</b> are serialised by an exclusive lock on the run log (and a lock within
  * this process); after taking the lock the log is checked to be still the same file, else the lock
- * is taken again on the new one, so two records at once both land.
+ * is taken again on the new one, so two records at once both land. The log is read through the
+ * locked channel, since closing another descriptor of it would drop a POSIX lock.
  *
  * @since 0.2
  */
@@ -176,7 +177,7 @@ public final class RunLogAppender {
                     if (before != null && !before.equals(key(real))) {
                         continue; // replaced by another record while we waited: lock the new file
                     }
-                    byte[] old = readLog(real);
+                    byte[] old = readLocked(file, ch);
                     Built b = build(campaign, file, old, cells, ifColumn);
                     replace(file, real, b.bytes());
                     return b.appended();
@@ -378,13 +379,35 @@ public final class RunLogAppender {
         }
     }
 
+    /**
+     * Reads the log through the locked channel itself: on POSIX systems closing any other
+     * descriptor of the file would release this process's lock.
+     */
+    private static byte[] readLocked(Path file, FileChannel ch) throws IOException, InputException {
+        long size = ch.size();
+        if (size > InputFiles.MAX_TABLE_BYTES) {
+            throw new InputException(Diagnostic.error(file, 0, 0, "the run log is larger than "
+                    + (InputFiles.MAX_TABLE_BYTES >> 20) + " MiB, the most Terrace reads"));
+        }
+        ByteBuffer buf = ByteBuffer.allocate((int) size);
+        long at = 0;
+        while (buf.hasRemaining()) {
+            int n = ch.read(buf, at);
+            if (n < 0) {
+                break;
+            }
+            at += n;
+        }
+        return Arrays.copyOf(buf.array(), buf.position());
+    }
+
     private static Object key(Path real) throws IOException {
         return Files.readAttributes(real, BasicFileAttributes.class).fileKey();
     }
 
     private static FileChannel openForLock(Path file, Path real) throws IOException {
         try {
-            return FileChannel.open(real, StandardOpenOption.WRITE);
+            return FileChannel.open(real, StandardOpenOption.READ, StandardOpenOption.WRITE);
         } catch (AccessDeniedException e) {
             throw new OutputRefusedException(file, "cannot record into the run log " + file
                     + ": permission denied; expected a run log you may write to");

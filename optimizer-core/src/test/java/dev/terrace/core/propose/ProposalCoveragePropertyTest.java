@@ -105,7 +105,8 @@ class ProposalCoveragePropertyTest {
             }
             boolean failed = r.nextDouble() < 0.15;
             double out = 0.5 + 0.3 * Math.sin(3 * s) + 0.05 * r.nextGaussian();
-            double cost = 10 + 5 * s + 0.2 * r.nextGaussian();
+            // a time is never negative (the reader refuses it); s spans about -2d to 2d
+            double cost = Math.exp(2 + 0.5 * s + 0.02 * r.nextGaussian());
             csv.append(failed ? "," : String.format(Locale.ROOT, ",%.4f", out));
             if (objective) {
                 csv.append(failed ? "," : String.format(Locale.ROOT, ",%.4f", cost));

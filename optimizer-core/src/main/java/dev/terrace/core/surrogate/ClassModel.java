@@ -1,6 +1,7 @@
 package dev.terrace.core.surrogate;
 
 import dev.terrace.core.space.DesignPoint;
+import dev.terrace.core.space.DesignSpace;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -30,6 +31,22 @@ import java.util.OptionalDouble;
  * ed.; ridge-penalised logistic regression: le Cessie &amp; van Houwelingen 1992, <i>Appl.
  * Stat.</i> 41:191; both from memory).
  *
+ * <p>Local evidence: a logistic model is smooth across the box, so on its own a class seen at one
+ * recipe among runs of another class far away would be outvoted by the prior and the trend. The
+ * predicted probabilities are therefore the posterior mean of a Dirichlet&ndash;multinomial whose
+ * prior is the logistic model with the weight of {@value #MODEL_PSEUDO_RUNS} run and whose counts
+ * are the labelled runs weighted by a Gaussian kernel of their distance to the recipe,
+ * p<sub>k</sub>(x) = (m&middot;q<sub>k</sub>(x) + &Sigma;<sub>i</sub> w<sub>i</sub>(x)[y<sub>i</sub> = k]) /
+ * (m + &Sigma;<sub>i</sub> w<sub>i</sub>(x)), w<sub>i</sub>(x) = exp(&minus;d(x, x<sub>i</sub>)&sup2; /
+ * 2&ell;&sup2;), with q the logistic model, m = {@link #MODEL_PSEUDO_RUNS}, d the distance of
+ * {@link DesignSpace#distance} and &ell; = {@link #LOCAL_LENGTH}: a Nadaraya&ndash;Watson kernel
+ * estimate of the class frequencies (Nadaraya 1964, <i>Theory Probab. Appl.</i> 9:141; Watson 1964,
+ * <i>Sankhy&#257; A</i> 26:359) shrunk towards the model by the conjugate Dirichlet prior (Gelman et
+ * al., <i>Bayesian Data Analysis</i>, 3rd ed., 2013, section 3.4; all from memory). At the recipe of
+ * a labelled run that no nearby run contradicts its class therefore has probability above 1/2;
+ * many consistent runs nearby make the observed frequencies win; far from every run (several
+ * &ell;) the logistic model is unchanged.
+ *
  * <p>Fitting: Newton&ndash;Raphson on the strictly convex penalised negative log-likelihood with
  * a backtracking line search; &lambda; is chosen from {@link ClassModelSettings#ridgeGrid()} by
  * the lowest mean held-out log loss over leave-one-out (few runs) or seeded k-fold folds; ties go
@@ -56,6 +73,22 @@ public final class ClassModel {
      */
     public static final double INTERCEPT_RIDGE_MIN = 1.0;
 
+    /**
+     * Weight of the logistic model in the local Dirichlet update, 1 run: one labelled run at a
+     * recipe counts as much as the model there, so its class becomes the most likely at that
+     * recipe (a project choice).
+     */
+    public static final double MODEL_PSEUDO_RUNS = 1.0;
+
+    /**
+     * Length of the kernel of the local update, 0.1 in the units of {@link DesignSpace#distance}
+     * (each numeric setting scaled to [0, 1] across the campaign box; a different categorical choice
+     * counts 1, so runs with other choices hardly contribute): a run speaks for recipes within about
+     * the batch separation of the proposals, and its weight falls below 1 % beyond 0.3 (a project
+     * choice).
+     */
+    public static final double LOCAL_LENGTH = 0.1;
+
     /** Newton iterations per fit at most. */
     private static final int MAX_NEWTON = 100;
 
@@ -68,9 +101,13 @@ public final class ClassModel {
     private final double ridge;
     private final int runs;
     private final double cvLogLoss;
+    private final List<DesignPoint> labelled;
+    private final int[] labels;
 
     private ClassModel(List<String> classes, ClassModelSupport.FeatureMap features, double[][] weights, double ridge,
-                       int runs, double cvLogLoss) {
+                       int runs, double cvLogLoss, List<DesignPoint> labelled, int[] labels) {
+        this.labelled = List.copyOf(labelled);
+        this.labels = labels.clone();
         this.classes = List.copyOf(classes);
         this.features = features;
         this.weights = weights;
@@ -133,7 +170,8 @@ public final class ClassModel {
         ClassModelSupport.FeatureMap map = ClassModelSupport.FeatureMap.of(x, settings.squaredTerms());
         List<Double> grid = descending(settings.ridgeGrid());
         if (n == 0) {
-            return new ClassModel(classes, map, new double[k][map.size()], grid.get(0), 0, Double.NaN);
+            return new ClassModel(classes, map, new double[k][map.size()], grid.get(0), 0, Double.NaN, List.of(),
+                    new int[0]);
         }
         double[][] f = map.map(x);
         int[][] fl = ClassModelSupport.folds(n, settings.folds(), settings.leaveOneOutUpTo(), seed);
@@ -162,7 +200,7 @@ public final class ClassModel {
             all[i] = i;
         }
         double[][] w = newton(f, y, offset, all, grid.get(best), new double[k][map.size()]);
-        return new ClassModel(classes, map, w, grid.get(best), n, loss[best] / n);
+        return new ClassModel(classes, map, w, grid.get(best), n, loss[best] / n, x, y);
     }
 
     /**
@@ -182,10 +220,30 @@ public final class ClassModel {
             if (runs == 0) {
                 out[i] = floored(exp(offset[i]));
             } else {
-                out[i] = probabilities(offset[i], weights, features.map(x.get(i)));
+                out[i] = local(x.get(i), probabilities(offset[i], weights, features.map(x.get(i))));
             }
         }
         return out;
+    }
+
+    /** The Dirichlet&ndash;multinomial update of the model's probabilities q by the kernel-weighted labelled runs. */
+    private double[] local(DesignPoint x, double[] q) {
+        double[] count = new double[q.length];
+        double total = 0;
+        for (int i = 0; i < labels.length; i++) {
+            double d = DesignSpace.distance(x, labelled.get(i));
+            double w = Math.exp(-0.5 * d * d / (LOCAL_LENGTH * LOCAL_LENGTH));
+            count[labels[i]] += w;
+            total += w;
+        }
+        if (!(total > 0)) {
+            return q;
+        }
+        double[] p = new double[q.length];
+        for (int c = 0; c < q.length; c++) {
+            p[c] = (MODEL_PSEUDO_RUNS * q[c] + count[c]) / (MODEL_PSEUDO_RUNS + total);
+        }
+        return floored(p);
     }
 
     /** @return the classes in the order of the probability columns; never null */

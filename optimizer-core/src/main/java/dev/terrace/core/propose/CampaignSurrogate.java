@@ -228,7 +228,7 @@ public final class CampaignSurrogate {
         }
         Map<String, GaussianProcess> gps = new LinkedHashMap<>();
         Map<String, GpLeaveOneOut> skill = new LinkedHashMap<>();
-        Map<String, java.util.concurrent.Callable<FittedOutcome>> gpTasks = new LinkedHashMap<>();
+        Map<String, java.util.concurrent.Callable<OutcomeGp>> gpTasks = new LinkedHashMap<>();
         Map<String, java.util.concurrent.Callable<ClassModel>> classTasks = new LinkedHashMap<>();
         Map<String, Double> fill = new LinkedHashMap<>();
         Map<String, Boolean> physics = new LinkedHashMap<>();
@@ -335,7 +335,7 @@ public final class CampaignSurrogate {
                         + " censored values, a " + TrainingSubset.METHOD);
             }
             final List<GpCensoring.Observation> censf = censKept;
-            gpTasks.put(o.name(), () -> FittedOutcome.fit(xs, yyf, ppf, gsf, seed, censf));
+            gpTasks.put(o.name(), () -> OutcomeGp.fit(xs, yyf, ppf, gsf, seed, censf));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -371,13 +371,13 @@ public final class CampaignSurrogate {
         java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(BUILD_THREADS);
         SuccessModel sm;
         try {
-            Map<String, java.util.concurrent.Future<FittedOutcome>> gf = new LinkedHashMap<>();
+            Map<String, java.util.concurrent.Future<OutcomeGp>> gf = new LinkedHashMap<>();
             gpTasks.forEach((k, t) -> gf.put(k, pool.submit(t)));
             Map<String, java.util.concurrent.Future<ClassModel>> cf = new LinkedHashMap<>();
             classTasks.forEach((k, t) -> cf.put(k, pool.submit(t)));
             java.util.concurrent.Future<SuccessModel> sf = pool.submit(() -> SuccessModel.fit(pts, ok, seed));
-            for (Map.Entry<String, java.util.concurrent.Future<FittedOutcome>> e : gf.entrySet()) {
-                FittedOutcome fo = join(e.getValue());
+            for (Map.Entry<String, java.util.concurrent.Future<OutcomeGp>> e : gf.entrySet()) {
+                OutcomeGp fo = join(e.getValue());
                 gps.put(e.getKey(), fo.gp());
                 skill.put(e.getKey(), fo.loo());
                 notes.addAll(fo.notes(e.getKey()));
@@ -391,33 +391,6 @@ public final class CampaignSurrogate {
         }
         return new CampaignSurrogate(lc, space, chain, fit, gps, skill, fill, physics, cms, sm, pts, runs, notes, used,
                 subsets);
-    }
-
-    /** One numeric outcome's GP: fitted on the measured runs, then updated with the censored ones. */
-    record FittedOutcome(GaussianProcess gp, GpLeaveOneOut loo, GpCensoring.Result censoring, int censored) {
-
-        static FittedOutcome fit(List<DesignPoint> x, double[] y, double[] prior, GpSettings gs, long seed,
-                                 List<GpCensoring.Observation> censored) {
-            GaussianProcess measured = GaussianProcess.fit(x, y, prior, gs, seed);
-            GpCensoring.Result cr = GpCensoring.update(measured, censored);
-            return new FittedOutcome(cr.gp(), cr.gp().leaveOneOut(x.size()), cr, censored.size());
-        }
-
-        List<String> notes(String outcome) {
-            List<String> out = new ArrayList<>();
-            if (censored > 0) {
-                out.add(String.format(java.util.Locale.ROOT, "%s: %d censored value%s (<X or >X) used as bounds on the"
-                                + " true value (expectation propagation)%s", outcome, censored, censored == 1 ? "" : "s",
-                        censoring.converged() ? "" : "; the bounds conflict with each other or with measured runs,"
-                                + " so the update stopped after " + censoring.sweeps() + " sweeps"));
-            }
-            if (!loo.hasSkill()) {
-                out.add(String.format(java.util.Locale.ROOT, "%s: no skill: leave-one-out predicts the %d measured values"
-                                + " no better than their mean (Q2 %.2f); its spread is widened to what the runs scatter"
-                                + " by, so the yield claims nothing from this model", outcome, loo.runs(), loo.q2()));
-            }
-            return out;
-        }
     }
 
     /** Threads used to fit the independent surrogates (the machines Terrace targets have 2 cores). */

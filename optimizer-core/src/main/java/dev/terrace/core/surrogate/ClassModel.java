@@ -1,6 +1,7 @@
 package dev.terrace.core.surrogate;
 
 import dev.terrace.core.space.DesignPoint;
+import dev.terrace.core.space.DesignSpace;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -30,6 +31,27 @@ import java.util.OptionalDouble;
  * ed.; ridge-penalised logistic regression: le Cessie &amp; van Houwelingen 1992, <i>Appl.
  * Stat.</i> 41:191; both from memory).
  *
+ * <p>Local evidence: a logistic model is smooth across the box, so on its own a class seen at one
+ * recipe among runs of another class far away would be outvoted by the prior and the trend. The
+ * predicted probabilities are therefore the posterior mean of a Dirichlet&ndash;multinomial whose
+ * prior is the logistic model with the weight of {@value #MODEL_PSEUDO_RUNS} run and whose counts
+ * are the labelled runs weighted by a Gaussian kernel of their distance to the recipe,
+ * p<sub>k</sub>(x) = (m&middot;q<sub>k</sub>(x) + &Sigma;<sub>i</sub> w<sub>i</sub>(x)[y<sub>i</sub> = k]) /
+ * (m + &Sigma;<sub>i</sub> w<sub>i</sub>(x)), w<sub>i</sub>(x) = exp(&minus;d(x, x<sub>i</sub>)&sup2; /
+ * 2&ell;&sup2;), with q the logistic model, m = {@link #MODEL_PSEUDO_RUNS}, d the distance of
+ * {@link DesignSpace#distance} and &ell; one of {@link #LOCAL_LENGTHS} (&ell; = 0: w<sub>i</sub> = 1 at the
+ * run's own recipe, 0 elsewhere), the one with the lowest
+ * leave-one-out log loss of the update over the labelled runs (likelihood cross-validation of the
+ * bandwidth, Habbema, Hermans &amp; van den Broek 1974, <i>COMPSTAT</i>; from memory; q is taken from
+ * the fit on all runs, ties go to the shorter length): a Nadaraya&ndash;Watson kernel
+ * estimate of the class frequencies (Nadaraya 1964, <i>Theory Probab. Appl.</i> 9:141; Watson 1964,
+ * <i>Sankhy&#257; A</i> 26:359) shrunk towards the model by the conjugate Dirichlet prior (Gelman et
+ * al., <i>Bayesian Data Analysis</i>, 3rd ed., 2013, section 3.4; all from memory). Whatever the
+ * length, at the recipe of a labelled run that no nearby run contradicts its class has probability
+ * above 1/2 (its own weight is 1, the model's is 1);
+ * many consistent runs nearby make the observed frequencies win; far from every run (several
+ * &ell;) the logistic model is unchanged.
+ *
  * <p>Fitting: Newton&ndash;Raphson on the strictly convex penalised negative log-likelihood with
  * a backtracking line search; &lambda; is chosen from {@link ClassModelSettings#ridgeGrid()} by
  * the lowest mean held-out log loss over leave-one-out (few runs) or seeded k-fold folds; ties go
@@ -56,6 +78,26 @@ public final class ClassModel {
      */
     public static final double INTERCEPT_RIDGE_MIN = 1.0;
 
+    /**
+     * Weight of the logistic model in the local Dirichlet update, 1 run: one labelled run at a
+     * recipe counts as much as the model there, so its class becomes the most likely at that
+     * recipe (a project choice).
+     */
+    public static final double MODEL_PSEUDO_RUNS = 1.0;
+
+    /**
+     * Candidate lengths of the kernel of the local update, 0, 0.01, 0.03 and 0.1 in the units of
+     * {@link DesignSpace#distance} (each numeric setting scaled to [0, 1] across the campaign box; a
+     * different categorical choice counts 1, so runs with other choices hardly contribute). The
+     * longest lets a run speak for recipes within about the batch separation of the proposals (its
+     * weight falls below 1 % beyond 0.3); 0 counts a run only at its very own recipe, which leaves a
+     * dense, noisy log to the logistic model (a project choice).
+     */
+    public static final List<Double> LOCAL_LENGTHS = List.of(0.0, 0.01, 0.03, 0.1);
+
+    /** Most runs scored when the kernel length is cross-validated (an evenly spaced subset above). */
+    static final int LOCAL_CV_MAX_ROWS = 2000;
+
     /** Newton iterations per fit at most. */
     private static final int MAX_NEWTON = 100;
 
@@ -68,9 +110,15 @@ public final class ClassModel {
     private final double ridge;
     private final int runs;
     private final double cvLogLoss;
+    private final List<DesignPoint> labelled;
+    private final int[] labels;
+    private final double localLength;
 
     private ClassModel(List<String> classes, ClassModelSupport.FeatureMap features, double[][] weights, double ridge,
-                       int runs, double cvLogLoss) {
+                       int runs, double cvLogLoss, List<DesignPoint> labelled, int[] labels, double localLength) {
+        this.localLength = localLength;
+        this.labelled = List.copyOf(labelled);
+        this.labels = labels.clone();
         this.classes = List.copyOf(classes);
         this.features = features;
         this.weights = weights;
@@ -133,7 +181,8 @@ public final class ClassModel {
         ClassModelSupport.FeatureMap map = ClassModelSupport.FeatureMap.of(x, settings.squaredTerms());
         List<Double> grid = descending(settings.ridgeGrid());
         if (n == 0) {
-            return new ClassModel(classes, map, new double[k][map.size()], grid.get(0), 0, Double.NaN);
+            return new ClassModel(classes, map, new double[k][map.size()], grid.get(0), 0, Double.NaN, List.of(),
+                    new int[0], LOCAL_LENGTHS.get(0));
         }
         double[][] f = map.map(x);
         int[][] fl = ClassModelSupport.folds(n, settings.folds(), settings.leaveOneOutUpTo(), seed);
@@ -162,7 +211,43 @@ public final class ClassModel {
             all[i] = i;
         }
         double[][] w = newton(f, y, offset, all, grid.get(best), new double[k][map.size()]);
-        return new ClassModel(classes, map, w, grid.get(best), n, loss[best] / n);
+        double[][] q = new double[n][];
+        for (int i = 0; i < n; i++) {
+            q[i] = probabilities(offset[i], w, f[i]);
+        }
+        return new ClassModel(classes, map, w, grid.get(best), n, loss[best] / n, x, y, localLength(x, y, q));
+    }
+
+    /** The kernel length of {@link #LOCAL_LENGTHS} with the lowest leave-one-out log loss of the local update. */
+    private static double localLength(List<DesignPoint> x, int[] y, double[][] q) {
+        int n = y.length;
+        int rows = Math.min(n, LOCAL_CV_MAX_ROWS);
+        double best = LOCAL_LENGTHS.get(0);
+        double bestLoss = Double.POSITIVE_INFINITY;
+        for (double len : LOCAL_LENGTHS) {
+            double loss = 0;
+            for (int r = 0; r < rows; r++) {
+                int i = (int) ((long) r * n / rows);
+                double[] count = new double[q[i].length];
+                double total = 0;
+                for (int j = 0; j < n; j++) {
+                    if (j == i) {
+                        continue;
+                    }
+                    double d = DesignSpace.distance(x.get(i), x.get(j));
+                    double wt = kernel(d, len);
+                    count[y[j]] += wt;
+                    total += wt;
+                }
+                double p = (MODEL_PSEUDO_RUNS * q[i][y[i]] + count[y[i]]) / (MODEL_PSEUDO_RUNS + total);
+                loss -= Math.log(Math.max(p, PROBABILITY_FLOOR));
+            }
+            if (loss < bestLoss - 1e-12) {
+                bestLoss = loss;
+                best = len;
+            }
+        }
+        return best;
     }
 
     /**
@@ -182,10 +267,43 @@ public final class ClassModel {
             if (runs == 0) {
                 out[i] = floored(exp(offset[i]));
             } else {
-                out[i] = probabilities(offset[i], weights, features.map(x.get(i)));
+                out[i] = local(x.get(i), probabilities(offset[i], weights, features.map(x.get(i))));
             }
         }
         return out;
+    }
+
+    /** The Dirichlet&ndash;multinomial update of the model's probabilities q by the kernel-weighted labelled runs. */
+    private double[] local(DesignPoint x, double[] q) {
+        double[] count = new double[q.length];
+        double total = 0;
+        for (int i = 0; i < labels.length; i++) {
+            double d = DesignSpace.distance(x, labelled.get(i));
+            double w = kernel(d, localLength);
+            count[labels[i]] += w;
+            total += w;
+        }
+        if (!(total > 0)) {
+            return q;
+        }
+        double[] p = new double[q.length];
+        for (int c = 0; c < q.length; c++) {
+            p[c] = (MODEL_PSEUDO_RUNS * q[c] + count[c]) / (MODEL_PSEUDO_RUNS + total);
+        }
+        return floored(p);
+    }
+
+    /** Gaussian kernel weight at distance d; length 0 counts only runs at the very same recipe. */
+    private static double kernel(double d, double length) {
+        if (length == 0) {
+            return d == 0 ? 1 : 0;
+        }
+        return Math.exp(-0.5 * d * d / (length * length));
+    }
+
+    /** @return the kernel length of the local update chosen by cross-validation (0: the same recipe only) */
+    public double localLength() {
+        return localLength;
     }
 
     /** @return the classes in the order of the probability columns; never null */
@@ -203,7 +321,10 @@ public final class ClassModel {
         return runs;
     }
 
-    /** @return mean held-out log loss (nats per run) at the chosen &lambda;; empty with no runs */
+    /**
+     * @return mean held-out log loss (nats per run) of the logistic part at the chosen &lambda; (before the
+     *         local update); empty with no runs
+     */
     public OptionalDouble crossValidatedLogLoss() {
         return runs == 0 ? OptionalDouble.empty() : OptionalDouble.of(cvLogLoss);
     }

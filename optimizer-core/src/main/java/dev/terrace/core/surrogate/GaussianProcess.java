@@ -122,14 +122,14 @@ public final class GaussianProcess {
     public static GaussianProcess fit(List<DesignPoint> x, double[] y, double[] priorMean, GpSettings settings,
             long seed) {
         Objects.requireNonNull(settings, "settings");
-        int n = checkRuns(x, y);
-        double[] m = priorAtRuns(priorMean, n);
+        int n = GpInputs.checkRuns(x, y);
+        double[] m = GpInputs.priorAtRuns(priorMean, n);
         int d = x.get(0).dimensions();
         int c = x.get(0).levelCount();
-        double[] r = residuals(y, m);
-        double offset = mean(r);
-        double spread = n > 1 ? sampleSd(r, offset) : 0;
-        double magnitude = magnitude(y, m);
+        double[] r = GpInputs.residuals(y, m);
+        double offset = GpInputs.mean(r);
+        double spread = n > 1 ? GpInputs.sampleSd(r, offset) : 0;
+        double magnitude = GpInputs.magnitude(y, m);
         boolean noSpread = n == 1 || !(spread > FLAT_TOLERANCE * magnitude);
         double scale = n == 1 ? SINGLE_RUN_SCALE_FRACTION * magnitude
                 : noSpread ? FLAT_SCALE_FRACTION * magnitude : spread;
@@ -137,7 +137,7 @@ public final class GaussianProcess {
         for (int i = 0; i < n; i++) {
             z[i] = (r[i] - offset) / scale;
         }
-        double[][] flat = encode(x);
+        double[][] flat = GpInputs.encode(x);
         GpHyperparameters h;
         int evaluations = 0;
         if (noSpread) {
@@ -151,7 +151,7 @@ public final class GaussianProcess {
                         settings.maxIterations(), null, rng);
                 evaluations = best.evaluations();
             } else {
-                int[] idx = subset(n, settings.hpoSubsetSize(), rng);
+                int[] idx = GpInputs.subset(n, settings.hpoSubsetSize(), rng);
                 double[][] fs = new double[idx.length][];
                 double[] zs = new double[idx.length];
                 for (int i = 0; i < idx.length; i++) {
@@ -190,18 +190,18 @@ public final class GaussianProcess {
      */
     public static GaussianProcess withHyperparameters(List<DesignPoint> x, double[] y, double[] priorMean,
             GpHyperparameters h, boolean standardise) {
-        int n = checkRuns(x, y);
+        int n = GpInputs.checkRuns(x, y);
         if (h.dimensions() != x.get(0).dimensions() || h.categoricalCount() != x.get(0).levelCount()) {
             throw new IllegalArgumentException("hyperparameters do not match the design points");
         }
-        double[] m = priorAtRuns(priorMean, n);
-        double[] r = residuals(y, m);
+        double[] m = GpInputs.priorAtRuns(priorMean, n);
+        double[] r = GpInputs.residuals(y, m);
         double offset = 0;
         double scale = 1;
         if (standardise) {
-            offset = mean(r);
-            double spread = n > 1 ? sampleSd(r, offset) : 0;
-            double magnitude = magnitude(y, m);
+            offset = GpInputs.mean(r);
+            double spread = n > 1 ? GpInputs.sampleSd(r, offset) : 0;
+            double magnitude = GpInputs.magnitude(y, m);
             boolean noSpread = n == 1 || !(spread > FLAT_TOLERANCE * magnitude);
             scale = n == 1 ? SINGLE_RUN_SCALE_FRACTION * magnitude
                     : noSpread ? FLAT_SCALE_FRACTION * magnitude : spread;
@@ -210,7 +210,7 @@ public final class GaussianProcess {
         for (int i = 0; i < n; i++) {
             z[i] = (r[i] - offset) / scale;
         }
-        return build(x, encode(x), z, m, offset, scale, h, GpSettings.defaults(), 0, null);
+        return build(x, GpInputs.encode(x), z, m, offset, scale, h, GpSettings.defaults(), 0, null);
     }
 
     private static GaussianProcess build(List<DesignPoint> x, double[][] flat, double[] z, double[] prior,
@@ -319,8 +319,8 @@ public final class GaussianProcess {
         return GpLeaveOneOut.of(y, err, var);
     }
 
-    /** Most runs scored by {@link #leaveOneOut}: 400 triangular solves keep it well under a fit's cost. */
-    public static final int LOO_MAX_ROWS = 400;
+    /** Most runs scored by {@link #leaveOneOut}: 200 triangular solves keep it well under a fit's cost. */
+    public static final int LOO_MAX_ROWS = 200;
 
     /**
      * Posterior predictions at a batch of points, evaluated in chunks of {@value #PREDICT_CHUNK}:
@@ -519,51 +519,6 @@ public final class GaussianProcess {
 
     // ---------------------------------------------------------------- input handling
 
-    private static int checkRuns(List<DesignPoint> x, double[] y) {
-        Objects.requireNonNull(x, "x");
-        Objects.requireNonNull(y, "y");
-        if (x.isEmpty()) {
-            throw new IllegalArgumentException("at least one run is needed");
-        }
-        if (x.size() != y.length) {
-            throw new IllegalArgumentException("runs and outcomes differ in number: " + x.size() + " vs " + y.length);
-        }
-        int d = x.get(0).dimensions();
-        int c = x.get(0).levelCount();
-        for (int i = 0; i < y.length; i++) {
-            DesignPoint p = Objects.requireNonNull(x.get(i), "design point");
-            if (p.dimensions() != d || p.levelCount() != c) {
-                throw new IllegalArgumentException("run " + i + " has another number of settings");
-            }
-            if (!Double.isFinite(y[i])) {
-                throw new IllegalArgumentException("outcome " + i + " is not finite: " + y[i]);
-            }
-        }
-        return y.length;
-    }
-
-    private static double[] priorAtRuns(double[] priorMean, int n) {
-        if (priorMean == null) {
-            return null;
-        }
-        if (priorMean.length != n) {
-            throw new IllegalArgumentException("prior mean has " + priorMean.length + " values for " + n + " runs");
-        }
-        boolean allNaN = true;
-        for (double v : priorMean) {
-            allNaN &= Double.isNaN(v);
-        }
-        if (allNaN) {
-            return null;
-        }
-        for (int i = 0; i < n; i++) {
-            if (!Double.isFinite(priorMean[i])) {
-                throw new IllegalArgumentException("prior mean must be finite at every run or NaN at all: run " + i);
-            }
-        }
-        return priorMean.clone();
-    }
-
     private double[] priorAtQueries(double[] priorMean, int m) {
         if (prior == null) {
             return null;
@@ -584,78 +539,5 @@ public final class GaussianProcess {
             throw new IllegalArgumentException("point has another number of settings than the runs: " + p);
         }
         return GpKernel.encode(p);
-    }
-
-    private static double[][] encode(List<DesignPoint> x) {
-        double[][] f = new double[x.size()][];
-        for (int i = 0; i < f.length; i++) {
-            f[i] = GpKernel.encode(x.get(i));
-        }
-        return f;
-    }
-
-    private static double[] residuals(double[] y, double[] m) {
-        double[] r = new double[y.length];
-        for (int i = 0; i < r.length; i++) {
-            r[i] = y[i] - (m == null ? 0 : m[i]);
-            if (!Double.isFinite(r[i])) {
-                throw new IllegalArgumentException("outcome minus prior mean overflows at run " + i);
-            }
-        }
-        return r;
-    }
-
-    /** Mean, summed as v/n so that values near the double range cannot overflow. */
-    private static double mean(double[] a) {
-        double s = 0;
-        for (double v : a) {
-            s += v / a.length;
-        }
-        return s;
-    }
-
-    /** Sample sd (n − 1), on values divided by their largest magnitude so that squares cannot overflow. */
-    private static double sampleSd(double[] a, double mean) {
-        double big = 0;
-        for (double v : a) {
-            big = Math.max(big, Math.abs(v - mean));
-        }
-        if (!(big > 0) || !Double.isFinite(big)) {
-            return 0;
-        }
-        double s = 0;
-        for (double v : a) {
-            double u = (v - mean) / big;
-            s += u * u;
-        }
-        return big * Math.sqrt(s / (a.length - 1));
-    }
-
-    private static double magnitude(double[] y, double[] m) {
-        double mag = 0;
-        for (int i = 0; i < y.length; i++) {
-            mag = Math.max(mag, Math.abs(y[i]));
-            if (m != null) {
-                mag = Math.max(mag, Math.abs(m[i]));
-            }
-        }
-        return mag > 0 && Double.isFinite(mag) ? mag : 1.0;
-    }
-
-    /** Seeded partial Fisher–Yates draw of k distinct indices from n, in increasing order. */
-    private static int[] subset(int n, int k, SplittableRandom rng) {
-        int[] idx = new int[n];
-        for (int i = 0; i < n; i++) {
-            idx[i] = i;
-        }
-        for (int i = 0; i < k; i++) {
-            int j = i + rng.nextInt(n - i);
-            int t = idx[i];
-            idx[i] = idx[j];
-            idx[j] = t;
-        }
-        int[] out = java.util.Arrays.copyOf(idx, k);
-        java.util.Arrays.sort(out);
-        return out;
     }
 }

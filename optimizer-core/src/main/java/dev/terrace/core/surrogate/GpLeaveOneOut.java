@@ -13,7 +13,7 @@ package dev.terrace.core.surrogate;
  * ({@link #hasSkill}).
  *
  * @param runs       runs scored, &ge; 1
- * @param rmse       root mean squared leave-one-out error, finite, &ge; 0
+ * @param rmse       root mean squared leave-one-out error, finite, &ge; 0 (0 when it could not be computed)
  * @param q2         predictive Q&sup2;, at most 1; NaN when the outcomes have no spread
  * @param observedSd sample standard deviation (n &minus; 1) of the scored outcomes, &ge; 0; 0 for one run
  * @since 0.2
@@ -58,12 +58,15 @@ public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd)
         }
         double ss = 0;
         double press = 0;
+        boolean finite = true;
         for (int i = 0; i < n; i++) {
             ss += (y[i] - mean) * (y[i] - mean);
             press += error[i] * error[i];
-            if (!Double.isFinite(error[i]) || !(variance[i] > 0)) {
-                throw new IllegalStateException("leave-one-out prediction " + i + " is not finite");
-            }
+            finite &= Double.isFinite(error[i]) && variance[i] > 0 && Double.isFinite(variance[i]);
+        }
+        if (!finite || !Double.isFinite(press)) {
+            // a degenerate factor: no judgement rather than a failed proposal
+            return new GpLeaveOneOut(n, 0, Double.NaN, n > 1 ? Math.sqrt(ss / (n - 1)) : 0);
         }
         double q2 = ss > 0 ? Math.min(1, 1 - press / ss) : Double.NaN;
         return new GpLeaveOneOut(n, Math.sqrt(press / n), q2, n > 1 ? Math.sqrt(ss / (n - 1)) : 0);

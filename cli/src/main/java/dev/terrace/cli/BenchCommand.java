@@ -60,9 +60,6 @@ final class BenchCommand implements Callable<Integer> {
                         "unknown problem '" + p + "'; expected branin, hartmann6, chamber or calibration");
             }
         }
-        if (seeds < 1 || threads < 1) {
-            throw new CommandLine.ParameterException(spec.commandLine(), "--seeds and --threads must be at least 1");
-        }
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
         if (problems.contains("calibration")) {
             long c0 = System.nanoTime();

@@ -38,9 +38,13 @@ final class CheckCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
         print(lc, out, global.quiet);
+        TrackRecordSection.Result track = TrackRecordSection.print(lc, out);
         for (Diagnostic d : lc.warnings()) {
             err.println(d);
         }
+        track.journal().warnings().forEach(err::println);
+        track.trackRecord().warnings().forEach(err::println);
+        out.println(NextStep.afterCheck(campaignFile, lc, track.journal()));
         err.flush();
         out.flush();
         return 0;

@@ -125,8 +125,10 @@ public final class FluxCommand implements Callable<Integer> {
             Unit u = Units.forQuantity(unit, Quantity.PRESSURE).orElseThrow(() -> new CommandLine.ParameterException(
                     spec.commandLine(), "--unit: unknown pressure unit '" + unit + "'; valid units: "
                     + String.join(", ", Units.symbolsOf(Quantity.PRESSURE))));
-            BeamReading rv = reading(v, positive(spec, bepV, "--bep-v", "pressure"), u, tV, "--t-v");
-            BeamReading riii = reading(iii, positive(spec, bepIii, "--bep-iii", "pressure"), u, tIii, "--t-iii");
+            BeamReading rv = reading(v, gauged(spec, positive(spec, bepV, "--bep-v", "pressure"), u, "--bep-v"), u, tV,
+                    "--t-v");
+            BeamReading riii = reading(iii, gauged(spec, positive(spec, bepIii, "--bep-iii", "pressure"), u, "--bep-iii"),
+                    u, tIii, "--t-iii");
             Optional<Compound> surface = surface(v, iii);
 
             FluxRatio ratio;
@@ -263,7 +265,15 @@ public final class FluxCommand implements Callable<Integer> {
                     throw new CommandLine.ParameterException(spec.commandLine(),
                             "--periods must be a whole number of at least 1, got " + periods);
                 }
-                g = rate(spec, () -> RheedCalibration.fromPeriods(periods, positive(spec, span, "--span", "time span in s"), c));
+                double each = positive(spec, span, "--span", "time span in s") / periods;
+                if (each < OptionRanges.MIN_RHEED_PERIOD_S || each > OptionRanges.MAX_RHEED_PERIOD_S) {
+                    throw new CommandLine.ParameterException(spec.commandLine(), fmt("--span / --periods must be a"
+                            + " period from %s to %s s, found %.4g s (%s s over %d periods)",
+                            dev.terrace.cli.Format.num(OptionRanges.MIN_RHEED_PERIOD_S),
+                            dev.terrace.cli.Format.num(OptionRanges.MAX_RHEED_PERIOD_S), each,
+                            dev.terrace.cli.Format.num(span), periods));
+                }
+                g = rate(spec, () -> RheedCalibration.fromPeriods(periods, span, c));
                 input = fmt("%d periods in %.4g s (period %.4g s)", periods, span, span / periods);
             } else {
                 throw new CommandLine.ParameterException(spec.commandLine(),
@@ -318,6 +328,25 @@ public final class FluxCommand implements Callable<Integer> {
         return Materials.compound(name).orElseThrow(() -> new CommandLine.ParameterException(spec.commandLine(),
                 "--material: unknown material '" + name + "'; use one of " + String.join(", ", Materials.compoundNames())
                         + ", or a ternary such as In0.2Ga0.8As"));
+    }
+
+    /**
+     * Highest beam-equivalent pressure accepted, Pa (7.5e-3 Torr): above the range a hot-cathode
+     * ion gauge reads, up to about 1e-3 Torr (from memory). A larger number is most often a BEP
+     * typed without its exponent or in the wrong --unit.
+     */
+    static final double MAX_BEP_PA = 1.0;
+
+    /** Refuses a BEP above {@link #MAX_BEP_PA}, with the range in the user's unit. */
+    private static double gauged(CommandSpec spec, double bep, Unit u, String option) {
+        if (u.toCanonical(bep, 0) > MAX_BEP_PA) {
+            double max = u.fromCanonical(MAX_BEP_PA, 0);
+            throw new CommandLine.ParameterException(spec.commandLine(), option + " must be a number greater than 0"
+                    + " and at most " + fmt("%.3g", max) + " " + u.symbol() + " (" + fmt("%.3g", MAX_BEP_PA)
+                    + " Pa, above what an ion gauge reads), found " + bep + " " + u.symbol()
+                    + "; check the exponent and --unit");
+        }
+        return bep;
     }
 
     private static double positive(CommandSpec spec, double value, String option, String what) {

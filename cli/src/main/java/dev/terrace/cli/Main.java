@@ -25,7 +25,7 @@ import java.util.Properties;
 @Command(name = "terrace", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = {"Plans MBE growth campaigns: checks run logs, converts gauge readings, fits growth models",
                 "to your own runs and proposes the next recipes."},
-        subcommands = {InitCommand.class, CheckCommand.class, FluxCommand.class, ModelsCommand.class, FitCommand.class, ProposeCommand.class, RankCommand.class, ValidateCommand.class, MapCommand.class, ReportCommand.class, BenchCommand.class,
+        subcommands = {InitCommand.class, CheckCommand.class, FluxCommand.class, ModelsCommand.class, FitCommand.class, ProposeCommand.class, RecordCommand.class, RankCommand.class, ValidateCommand.class, MapCommand.class, ReportCommand.class, BenchCommand.class,
                 DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 ok, 1 the job ran but failed, 2 bad input or usage."})
 public final class Main implements Runnable {
@@ -89,11 +89,44 @@ public final class Main implements Runnable {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         cl.setExecutionExceptionHandler(Main::handle);
+        CommandLine.IParameterExceptionHandler refusals = cl.getParameterExceptionHandler();
+        cl.setParameterExceptionHandler((ex, args) -> refusals.handleParseException(OptionRanges.reworded(ex), args));
+        cl.setExecutionStrategy(parsed -> {
+            OptionRanges.check(parsed);
+            refuseEmptyPaths(parsed);
+            return new CommandLine.RunLast().execute(parsed);
+        });
         for (CommandLine sub : cl.getSubcommands().values()) {
             CommandLine.Model.UsageMessageSpec um = sub.getCommandSpec().usageMessage();
             um.description(firstSentenceJoined(um.description()));
         }
         return cl;
+    }
+
+    /**
+     * Refuses an empty or blank path given to any option or parameter ({@code --out ""}), which
+     * Java would read as the current folder, naming the option.
+     *
+     * @param parsed the parse result
+     * @throws CommandLine.ParameterException for the first empty path
+     */
+    static void refuseEmptyPaths(CommandLine.ParseResult parsed) {
+        for (CommandLine.ParseResult pr = parsed; pr != null; pr = pr.subcommand()) {
+            java.util.List<CommandLine.Model.ArgSpec> args = new java.util.ArrayList<>(pr.matchedOptions());
+            args.addAll(pr.matchedPositionals());
+            for (CommandLine.Model.ArgSpec a : args) {
+                boolean isPath = a.type() == java.nio.file.Path.class || a.auxiliaryTypes().length > 0
+                        && a.auxiliaryTypes()[0] == java.nio.file.Path.class;
+                if (!isPath || a.originalStringValues().stream().noneMatch(String::isBlank)) {
+                    continue;
+                }
+                String name = a.isOption() ? ((CommandLine.Model.OptionSpec) a).longestName() : a.paramLabel();
+                String label = a.paramLabel() == null ? "" : a.paramLabel();
+                throw new CommandLine.ParameterException(pr.commandSpec().commandLine(), name
+                        + ": the path is empty; expected the name of " + (label.contains("DIR") ? "a folder" : "a file"),
+                        a, "");
+            }
+        }
     }
 
     /**

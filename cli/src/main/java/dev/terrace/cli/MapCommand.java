@@ -84,8 +84,9 @@ final class MapCommand implements Callable<Integer> {
     int grid;
 
     @Option(names = "--temperature-uncertainty", paramLabel = "K", defaultValue = "0",
-            description = {"Standard deviation in K of a thermocouple error that shifts every temperature setting",
-                    "together; the yield is averaged over it (default: ${DEFAULT-VALUE}, the plain map)."})
+            description = {"Standard deviation in K (0 to " + (int) OptionRanges.MAX_TEMPERATURE_UNCERTAINTY_K + ") of a thermocouple error that",
+                    "shifts every temperature setting together; the yield is averaged over it (default: ${DEFAULT-VALUE},",
+                    "the plain map)."})
     double temperatureUncertainty;
 
     @Option(names = "--pareto", paramLabel = "COST",
@@ -99,13 +100,7 @@ final class MapCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         CommandLine cl = spec.commandLine();
-        if (grid < WindowMap.MIN_GRID || grid > WindowMap.MAX_GRID) {
-            throw new CommandLine.ParameterException(cl, "--grid must be " + WindowMap.MIN_GRID + " to "
-                    + WindowMap.MAX_GRID + " cells per axis, found " + grid);
-        }
-        if (!(temperatureUncertainty >= 0) || !Double.isFinite(temperatureUncertainty)) {
-            throw new CommandLine.ParameterException(cl, "--temperature-uncertainty must be a number of kelvin >= 0");
-        }
+        // --grid and --temperature-uncertainty are range-checked before the command runs (OptionRanges)
         if (out != null) {
             String name = out.getFileName().toString().toLowerCase(Locale.ROOT);
             if (!name.endsWith(".png") && !name.endsWith(".svg")) {
@@ -153,6 +148,10 @@ final class MapCommand implements Callable<Integer> {
         } catch (IllegalArgumentException ex) {
             throw new CommandLine.ParameterException(cl, "--at: " + ex.getMessage());
         }
+        for (String w : outsideBox(c, held, heldFrom, x, y)) {
+            err.println("terrace: warning: " + w);
+        }
+        err.flush();
         CampaignSurrogate sur;
         WindowMapResult map;
         try (Progress bar = Progress.startPhases("map", 2, global)) {
@@ -205,6 +204,37 @@ final class MapCommand implements Callable<Integer> {
             cl.getErr().flush();
         }
         return 0;
+    }
+
+    /**
+     * One warning per held numeric setting outside its campaign box, naming the setting, the value
+     * and the box: the map holds the value as given, so its predictions there extrapolate.
+     *
+     * @param c        the campaign
+     * @param held     the held settings as given ({@code --at} or a run's recipe)
+     * @param heldFrom "--at" or "run ID"
+     * @param x        the horizontal axis, not held
+     * @param y        the vertical axis, not held
+     * @return the warnings, in campaign order; empty when every held value is inside its box
+     */
+    static List<String> outsideBox(Campaign c, Map<String, Object> held, String heldFrom, String x, String y) {
+        List<String> out = new java.util.ArrayList<>();
+        for (ParameterSpec p : c.parameters()) {
+            Object v = held.get(p.name());
+            if (p.isCategorical() || !(v instanceof Double) || p.name().equals(x) || p.name().equals(y)) {
+                continue;
+            }
+            double d = (Double) v;
+            if (d < p.min() || d > p.max()) {
+                String unit = " " + p.unit().symbol();
+                out.add((heldFrom.equals("--at") ? "--at " + p.name() + "=" + Format.setting(d) + unit
+                        : heldFrom + " holds " + p.name() + " at " + Format.setting(d) + unit)
+                        + ", outside the campaign box of " + p.name() + ", " + Format.setting(p.min()) + " to "
+                        + Format.setting(p.max()) + unit + "; the map holds it there, so its predictions extrapolate"
+                        + " beyond the box");
+            }
+        }
+        return out;
     }
 
     static String summary(WindowMapResult m, Campaign c, CampaignSurrogate sur, String heldFrom, Map<String, Object> given) {

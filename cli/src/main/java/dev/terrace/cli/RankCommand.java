@@ -7,7 +7,7 @@ import dev.terrace.core.propose.ProposeSettings;
 import dev.terrace.core.propose.Proposer;
 import dev.terrace.core.propose.Proposals.ProposalSet;
 import dev.terrace.core.runlog.RunLog;
-import dev.terrace.core.runlog.RunLogReader;
+import dev.terrace.core.runlog.CandidatesReader;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -51,7 +51,7 @@ final class RankCommand implements Callable<Integer> {
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         output.guard(lc, java.util.List.of(new dev.terrace.core.io.SafeFiles.Input(candidates, "candidates file")));
-        RunLog cands = RunLogReader.readCandidates(lc.campaign(), candidates);
+        RunLog cands = CandidatesReader.read(lc.campaign(), candidates);
         refuseUnrankable(lc.campaign(), cands);
         ProposeSettings s = ProposeSettings.defaults().withSeed(seed).withPhysics(!noPhysics);
         CampaignSurrogate sur;
@@ -65,13 +65,11 @@ final class RankCommand implements Callable<Integer> {
         return 0;
     }
 
-    /** Exit 2 before any fitting when no candidate gives every setting, naming what is missing. */
+    /**
+     * Exit 2 before any fitting when no candidate gives every setting, naming what is missing (an
+     * empty file, one without candidates and a missing setting column are refused by the reader).
+     */
     private void refuseUnrankable(dev.terrace.core.campaign.Campaign c, RunLog cands) {
-        if (cands.runs().isEmpty()) {
-            throw new UsageException("--candidates " + candidates + " holds no candidate recipes; expected a header row"
-                    + " naming the settings (" + c.parameters().stream().map(p -> p.name())
-                    .collect(java.util.stream.Collectors.joining(", ")) + ") and one row per candidate");
-        }
         java.util.List<String> why = new java.util.ArrayList<>();
         for (dev.terrace.core.runlog.Run r : cands.runs()) {
             java.util.List<String> missing = c.parameters().stream()

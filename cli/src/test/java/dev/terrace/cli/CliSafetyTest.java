@@ -171,7 +171,7 @@ class CliSafetyTest {
     @Test
     void rankingWithNoCompleteCandidateIsAUsageErrorNamingTheMissingSettings(@TempDir Path tmp) throws Exception {
         Path campaign = demo(tmp);
-        Path cands = Files.writeString(campaign.getParent().resolve("cands.csv"), "run_id,t_drop,ga_amount\nK1,250,3\n");
+        Path cands = Files.writeString(campaign.getParent().resolve("cands.csv"), "run_id,t_drop,ga_amount,ga_rate,as_flux,t_cryst,as_source\nK1,250,3,,,,\n");
         Map<String, String> before = hashes(campaign.getParent());
         assertRefused(run("rank", campaign.toString(), "--candidates", cands.toString(), "-q"),
                 cands.toString(), "K1 has no ga_rate, as_flux, t_cryst, as_source");

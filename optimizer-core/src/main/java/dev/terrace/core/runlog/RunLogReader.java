@@ -165,7 +165,9 @@ public final class RunLogReader {
     /**
      * Reads a file of candidate recipes (for ranking): the same format and checks as a run log, but
      * the {@value #RUN_ID} column is optional; without it candidates are named C1, C2, ... in file
-     * order. Outcome and status columns are allowed and ignored by ranking.
+     * order. Outcome and status columns are allowed and ignored by ranking. Same as
+     * {@link CandidatesReader#read}, which adds the checks for an empty file, a missing setting
+     * column and a file without candidates.
      *
      * @param campaign the campaign whose settings the columns name
      * @param file     the CSV file
@@ -174,14 +176,7 @@ public final class RunLogReader {
      * @throws IOException    on other read failures
      */
     public static RunLog readCandidates(Campaign campaign, Path file) throws IOException, InputException {
-        Objects.requireNonNull(campaign, "campaign");
-        String text;
-        try {
-            text = decodeUtf8(file, InputFiles.read(file, InputFiles.CANDIDATES));
-        } catch (NoSuchFileException e) {
-            throw new InputException(Diagnostic.error(file, 0, 0, "candidate file not found"));
-        }
-        return parse(campaign, file, text, true);
+        return CandidatesReader.read(campaign, file);
     }
 
     // ------------------------------------------------------------------------------------------
@@ -195,7 +190,7 @@ public final class RunLogReader {
         return parse(campaign, file, text, false);
     }
 
-    private static RunLog parse(Campaign campaign, Path file, String text, boolean candidates) throws InputException {
+    static RunLog parse(Campaign campaign, Path file, String text, boolean candidates) throws InputException {
         List<Diagnostic> diags = new ArrayList<>();
         CsvTokenizer.Result tokens = CsvTokenizer.tokenize(text);
         for (CsvTokenizer.Problem p : tokens.problems()) {
@@ -693,7 +688,7 @@ public final class RunLogReader {
     }
 
     /** Decodes UTF-8 strictly, pointing at the first byte that is not UTF-8. */
-    private static String decodeUtf8(Path file, byte[] bytes) throws InputException {
+    static String decodeUtf8(Path file, byte[] bytes) throws InputException {
         CharsetDecoder decoder = StandardCharsets.UTF_8.newDecoder()
                 .onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);

@@ -167,12 +167,15 @@ abstract class FitOptimizer extends FreeParameters {
                         Map<String, Double> sigma0, double radiusFraction) {
         double[] uu = s0;
         Map<String, Double> sg = sigma0;
-        for (int iter = 0; iter < REWEIGHT_ITERATIONS; iter++) {
+        // censored terms tie the fitted values to the scatter: iterate to the joint maximum
+        int passes = hasCensored ? REWEIGHT_ITERATIONS_CENSORED : REWEIGHT_ITERATIONS;
+        double tol = hasCensored ? SETTLED_SIGMA_CHANGE_CENSORED : SETTLED_SIGMA_CHANGE;
+        for (int iter = 0; iter < passes; iter++) {
             uu = minimise(uu, combo, free, sg, radiusFraction);
             Map<String, Double> next = updateSigma(predictAll(values(combo, free, uu)));
             boolean settled = true;
             for (String k : next.keySet()) {
-                if (Math.abs(next.get(k) / sg.get(k) - 1) > 0.05) {
+                if (Math.abs(next.get(k) / sg.get(k) - 1) > tol) {
                     settled = false;
                 }
             }

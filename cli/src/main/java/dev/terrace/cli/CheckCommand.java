@@ -1,6 +1,7 @@
 package dev.terrace.cli;
 
 import dev.terrace.core.Cautions;
+import dev.terrace.core.CensoredCells;
 import dev.terrace.core.CheckSummary;
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
@@ -37,9 +38,13 @@ final class CheckCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
         print(lc, out, global.quiet);
+        TrackRecordSection.Result track = TrackRecordSection.print(lc, out);
         for (Diagnostic d : lc.warnings()) {
             err.println(d);
         }
+        track.journal().warnings().forEach(err::println);
+        track.trackRecord().warnings().forEach(err::println);
+        out.println(NextStep.afterCheck(campaignFile, lc, track.journal()));
         err.flush();
         out.flush();
         return 0;
@@ -74,6 +79,7 @@ final class CheckCommand implements Callable<Integer> {
                     + Format.pad(String.valueOf(col.count()), 6) + range);
         }
         out.println("(* measured outcome)");
+        printCensored(CensoredCells.of(lc), out);
         if (!s.targets().isEmpty()) {
             out.println();
             out.println("Targets met so far (ok runs that measured the outcome):");
@@ -90,6 +96,21 @@ final class CheckCommand implements Callable<Integer> {
                 out.println("  - " + line);
             }
             out.println("  " + Cautions.DEFER);
+        }
+    }
+
+    /** One line per outcome with censored cells: how many below, how many above, and the range of the bounds. */
+    static void printCensored(java.util.List<CensoredCells> cells, PrintWriter out) {
+        if (cells.isEmpty()) {
+            return;
+        }
+        out.println();
+        out.println("Censored cells (only a bound recorded; fits use them through the Tobit likelihood):");
+        for (CensoredCells c : cells) {
+            String range = c.minBound() == c.maxBound() ? "bound " + Format.num(c.minBound())
+                    : "bounds " + Format.num(c.minBound()) + " to " + Format.num(c.maxBound());
+            out.println("  " + Format.pad(c.outcome(), 16) + c.below() + " x <X, " + c.above() + " x >X, " + range
+                    + (c.unit().isEmpty() ? "" : " " + c.unit()));
         }
     }
 

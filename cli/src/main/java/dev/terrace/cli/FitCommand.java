@@ -7,7 +7,8 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.fit.FitResults.Candidate;
 import dev.terrace.core.fit.FitResults.Estimate;
-import dev.terrace.core.fit.FitResults.Excluded;
+import dev.terrace.core.fit.FitResults.RunStatus;
+import dev.terrace.core.fit.FitResults.RunUse;
 import dev.terrace.core.fit.FitResults.FitReport;
 import dev.terrace.core.fit.FitResults.ModelFit;
 import dev.terrace.core.fit.FitResults.OutcomeFit;
@@ -21,6 +22,9 @@ import picocli.CommandLine.Parameters;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 
@@ -29,6 +33,11 @@ import java.util.concurrent.Callable;
         description = {"Fit the campaign's growth models to its ok runs, with 95 %% intervals, held parameters",
                 "and their reasons, discrete choices by AICc, and residuals per run."})
 final class FitCommand implements Callable<Integer> {
+
+    /** Run lines printed one per run before the rest are grouped by status and reason (readability choice). */
+    static final int RUN_LINES = 40;
+    /** Run ids shown per group of identical statuses. */
+    static final int GROUP_IDS = 6;
 
     /** Default seed of the bootstrap and multi-start. */
     static final long DEFAULT_SEED = 7;
@@ -175,7 +184,8 @@ final class FitCommand implements Callable<Integer> {
                     } else {
                         out.println("  " + Format.pad(o.outcome(), 16) + "RMSE " + Format.num(o.rmse())
                                 + (o.scale().equals("log10") ? " (log10; x" + Format.num(Math.pow(10, o.rmse())) + ")" : "")
-                                + " over " + o.n() + " runs");
+                                + " over " + o.n() + " runs"
+                                + (o.censored() > 0 ? " (" + o.censored() + " censored: Tobit terms, not in the RMSE)" : ""));
                     }
                 }
             }
@@ -190,12 +200,9 @@ final class FitCommand implements Callable<Integer> {
                     out.println(sb);
                 }
             }
-            if (!f.excluded().isEmpty()) {
+            if (!f.runs().isEmpty()) {
                 out.println();
-                out.println("  runs not used:");
-                for (Excluded x : f.excluded()) {
-                    out.println("    " + Format.pad(x.runId(), 8) + x.reason());
-                }
+                printRuns(f, out);
             }
             if (residuals && !f.residuals().isEmpty()) {
                 out.println();
@@ -208,6 +215,37 @@ final class FitCommand implements Callable<Integer> {
                 }
             }
         }
+    }
+
+    /**
+     * Every run of the log with its status in one model's fit, one line each; past
+     * {@link #RUN_LINES} lines the remaining runs are grouped by status and reason with a count
+     * (the JSON output always lists every run).
+     */
+    static void printRuns(ModelFit f, PrintWriter out) {
+        out.println("  runs (" + f.count(RunUse.USED) + " used, " + f.count(RunUse.CENSORED) + " censored, "
+                + f.count(RunUse.EXCLUDED) + " excluded):");
+        List<RunStatus> all = f.runs();
+        int single = all.size() <= RUN_LINES ? all.size() : RUN_LINES - 1;
+        int width = Math.max(8, all.stream().limit(single).mapToInt(r -> r.runId().length() + 2).max().orElse(8));
+        for (RunStatus r : all.subList(0, single)) {
+            out.println("    " + Format.pad(r.runId(), width) + statusText(r.use(), r.reason()));
+        }
+        if (single == all.size()) {
+            return;
+        }
+        Map<String, List<String>> groups = new LinkedHashMap<>();
+        for (RunStatus r : all.subList(single, all.size())) {
+            groups.computeIfAbsent(statusText(r.use(), r.reason()), k -> new ArrayList<>()).add(r.runId());
+        }
+        out.println("    ... " + (all.size() - single) + " more runs, grouped by status (JSON lists each):");
+        groups.forEach((text, ids) -> out.println("    " + Format.pad(ids.size() + " x", width) + text + "  ("
+                + String.join(", ", ids.subList(0, Math.min(GROUP_IDS, ids.size())))
+                + (ids.size() > GROUP_IDS ? ", ..." : "") + ")"));
+    }
+
+    private static String statusText(RunUse use, String reason) {
+        return (Format.pad(use.word(), 10) + reason).stripTrailing();
     }
 
     static String choices(Map<String, Double> m) {
@@ -229,8 +267,15 @@ final class FitCommand implements Callable<Integer> {
             m.put("id", f.id());
             m.put("runs_used", f.runsUsed());
             ArrayNode ex = m.putArray("runs_excluded");
-            for (Excluded x : f.excluded()) {
-                ex.addObject().put("run_id", x.runId()).put("reason", x.reason());
+            ArrayNode cen = m.putArray("runs_censored");
+            ArrayNode st = m.putArray("run_status");
+            for (RunStatus x : f.runs()) {
+                if (x.use() == RunUse.EXCLUDED) {
+                    ex.addObject().put("run_id", x.runId()).put("reason", x.reason());
+                } else if (x.use() == RunUse.CENSORED) {
+                    cen.addObject().put("run_id", x.runId()).put("reason", x.reason());
+                }
+                st.addObject().put("run_id", x.runId()).put("status", x.use().word()).put("reason", x.reason());
             }
             ObjectNode ps = m.putObject("parameters");
             for (Estimate e : f.estimates()) {
@@ -291,6 +336,7 @@ final class FitCommand implements Callable<Integer> {
                     oo.put("accuracy", o.accuracy());
                 } else {
                     oo.put("rmse", o.rmse());
+                    oo.put("censored", o.censored());
                 }
             }
             ObjectNode corr = m.putObject("correlations");

@@ -25,7 +25,7 @@ import java.util.Properties;
 @Command(name = "terrace", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = {"Plans MBE growth campaigns: checks run logs, converts gauge readings, fits growth models",
                 "to your own runs and proposes the next recipes."},
-        subcommands = {InitCommand.class, CheckCommand.class, FluxCommand.class, ModelsCommand.class, FitCommand.class, ProposeCommand.class, RankCommand.class, ValidateCommand.class, MapCommand.class, ReportCommand.class, BenchCommand.class,
+        subcommands = {InitCommand.class, CheckCommand.class, FluxCommand.class, ModelsCommand.class, FitCommand.class, ProposeCommand.class, RecordCommand.class, RankCommand.class, ValidateCommand.class, MapCommand.class, ReportCommand.class, BenchCommand.class,
                 DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Exit codes: 0 ok, 1 the job ran but failed, 2 bad input or usage."})
 public final class Main implements Runnable {

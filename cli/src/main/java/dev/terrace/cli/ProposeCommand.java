@@ -65,6 +65,9 @@ final class ProposeCommand implements Callable<Integer> {
     @Option(names = "--no-physics", description = "Switch the growth models off (a pure Gaussian process).")
     boolean noPhysics;
 
+    @Option(names = "--no-journal", description = "Do not append this batch to the campaign's proposal journal.")
+    boolean noJournal;
+
     @Override
     public Integer call() throws Exception {
         output.check(spec);
@@ -84,6 +87,9 @@ final class ProposeCommand implements Callable<Integer> {
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         output.guard(lc, java.util.List.of());
+        if (!noJournal) {
+            dev.terrace.core.journal.Journal.checkAppendable(lc.campaign().journal());
+        }
         ProposeSettings s = ProposeSettings.defaults().withBatch(batch).withSeed(seed).withExplore(explore)
                 .withPhysics(!noPhysics).withWithinRuns(withinRuns == null ? Double.POSITIVE_INFINITY : withinRuns);
         ProposalSet set;
@@ -95,7 +101,13 @@ final class ProposeCommand implements Callable<Integer> {
             set = Proposer.propose(sur, s);
             bar.step();
         }
+        if (!noJournal && !set.proposals().isEmpty()) {
+            dev.terrace.core.journal.Journal.appendBatch(lc, set, java.time.Instant.now());
+        }
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
+        if (!global.quiet) {
+            err.println(NextStep.afterPropose(campaignFile, set, !noJournal));
+        }
         return 0;
     }
 }

@@ -19,7 +19,6 @@ import picocli.CommandLine.Parameters;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
@@ -34,6 +33,7 @@ import java.util.concurrent.Callable;
         description = {"Hold out each ok run in turn, refit the growth models, the GP and both together to the",
                 "other runs, and score how well each predicts the held-out run (RMSE, 90 %% interval",
                 "coverage, MSLL; log loss and accuracy for classes) against the runs' plain mean.",
+                "The proposal surrogate (models + GP, as propose builds it) comes first; the verdict is on it.",
                 "Failed runs always stay in training. The run log is never changed."})
 final class ValidateCommand implements Callable<Integer> {
 
@@ -114,6 +114,8 @@ final class ValidateCommand implements Callable<Integer> {
 
     static void printTable(ValidationReport r, long seed, boolean noModels, PrintWriter out) {
         out.println("Leave-one-out validation of campaign " + r.campaignId() + ", seed " + seed);
+        out.println("First per outcome: " + Validation.PROPOSAL + ", the " + Validation.PROPOSAL_LABEL
+                + " (growth models + GP on their residual, as terrace propose builds it); the others are comparisons.");
         out.println("Errors on each outcome's fitting scale (log10 for log outcomes); '" + Validation.MEAN
                 + "' is the plain mean (or class frequencies) of the other runs.");
         out.println();
@@ -122,9 +124,7 @@ final class ValidateCommand implements Callable<Integer> {
                 + Format.pad("log loss", 10) + "right class");
         for (OutcomeValidation o : r.outcomes()) {
             boolean first = true;
-            List<String> keys = new ArrayList<>(Validation.SURROGATES);
-            keys.add(Validation.MEAN);
-            for (String k : keys) {
+            for (String k : Validation.REPORT_ORDER) {
                 String lead = first ? Format.pad(o.outcome(), 16) + Format.pad(o.scale(), 8) : " ".repeat(24);
                 first = false;
                 Optional<Score> s = o.score(k);
@@ -167,23 +167,24 @@ final class ValidateCommand implements Callable<Integer> {
             ObjectNode on = outs.addObject();
             on.put("outcome", o.outcome());
             on.put("scale", o.scale());
+            ObjectNode prop = on.putObject("proposal_surrogate");
+            prop.put("surrogate", Validation.PROPOSAL);
+            prop.put("built_as", "growth models + GP on their residual, as terrace propose builds it");
+            Optional<Score> ps = o.score(Validation.PROPOSAL);
+            if (ps.isPresent()) {
+                putScore(prop.putObject("score"), ps.get());
+            } else {
+                prop.putNull("score");
+            }
+            prop.put("verdict", o.proposalVerdict());
             ObjectNode by = on.putObject("by_surrogate");
-            List<String> keys = new ArrayList<>(Validation.SURROGATES);
-            keys.add(Validation.MEAN);
-            for (String k : keys) {
+            for (String k : Validation.REPORT_ORDER) {
                 Optional<Score> s = o.score(k);
                 if (s.isEmpty()) {
                     by.putNull(k);
                     continue;
                 }
-                Score sc = s.get();
-                ObjectNode sn = by.putObject(k);
-                sn.put("n", sc.n());
-                sc.rmseIfAny().ifPresent(v -> sn.put("rmse", v));
-                sc.coverage90IfAny().ifPresent(v -> sn.put("coverage90", v));
-                sc.msllIfAny().ifPresent(v -> sn.put("msll", v));
-                sc.logLossIfAny().ifPresent(v -> sn.put("log_loss", v));
-                sc.accuracyIfAny().ifPresent(v -> sn.put("accuracy", v));
+                putScore(by.putObject(k), s.get());
             }
             ArrayNode par = on.putArray("parity");
             for (ParityPoint p : o.parity()) {
@@ -194,5 +195,17 @@ final class ValidateCommand implements Callable<Integer> {
         ArrayNode v = root.putArray("verdict");
         r.verdict().forEach(v::add);
         return om.writeValueAsString(root);
+    }
+
+    private static void putScore(ObjectNode sn, Score sc) {
+        sn.put("n", sc.n());
+        sc.rmseIfAny().ifPresent(v -> sn.put("rmse", v));
+        sc.coverage90IfAny().ifPresent(v -> {
+            sn.put("coverage90", v);
+            sn.put("inside90", sc.hits());
+        });
+        sc.msllIfAny().ifPresent(v -> sn.put("msll", v));
+        sc.logLossIfAny().ifPresent(v -> sn.put("log_loss", v));
+        sc.accuracyIfAny().ifPresent(v -> sn.put("accuracy", v));
     }
 }

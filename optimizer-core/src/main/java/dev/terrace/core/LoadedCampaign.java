@@ -34,11 +34,13 @@ public record LoadedCampaign(Campaign campaign, RunLog runLog, List<Diagnostic> 
     /**
      * The files this campaign was read from, which no output may replace.
      *
-     * @return the campaign file and the run log; never null
+     * @return the campaign file, the run log and the proposal journal (which need not exist yet);
+     *         never null
      */
     public List<SafeFiles.Input> inputs() {
         return List.of(new SafeFiles.Input(campaign.file(), "campaign file"),
-                new SafeFiles.Input(runLog.file(), "run log"));
+                new SafeFiles.Input(runLog.file(), "run log"),
+                new SafeFiles.Input(campaign.journal(), "proposal journal"));
     }
 
     /**

@@ -24,11 +24,13 @@ import java.util.Optional;
  * @param models     growth-model plugin ids; never null, possibly empty
  * @param file       the campaign file; never null
  * @param runs       the run-log file, resolved against the campaign file's folder; never null
+ * @param journal    the proposal journal ({@code journal:} key, default {@value CampaignReader#DEFAULT_JOURNAL}
+ *                   beside the campaign file), resolved against the campaign file's folder; never null
  * @since 0.1
  */
 public record Campaign(String id, String title, MaterialSpec material, Surface surface,
                        List<ParameterSpec> parameters, List<OutcomeSpec> outcomes, List<Target> targets,
-                       List<LinearLimit> limits, List<String> models, Path file, Path runs) {
+                       List<LinearLimit> limits, List<String> models, Path file, Path runs, Path journal) {
 
     /** Copies and checks the contents. */
     public Campaign {
@@ -38,11 +40,40 @@ public record Campaign(String id, String title, MaterialSpec material, Surface s
         Objects.requireNonNull(surface, "surface");
         Objects.requireNonNull(file, "file");
         Objects.requireNonNull(runs, "runs");
+        Objects.requireNonNull(journal, "journal");
         parameters = List.copyOf(parameters);
         outcomes = List.copyOf(outcomes);
         targets = List.copyOf(targets);
         limits = List.copyOf(limits);
         models = List.copyOf(models);
+    }
+
+    /**
+     * A campaign with the default journal, {@value CampaignReader#DEFAULT_JOURNAL} beside the campaign file.
+     *
+     * @param id         identifier
+     * @param title      free text
+     * @param material   the material section
+     * @param surface    the resolved material facts
+     * @param parameters the settings
+     * @param outcomes   the outcomes
+     * @param targets    the targets
+     * @param limits     the linear limits
+     * @param models     growth-model plugin ids
+     * @param file       the campaign file
+     * @param runs       the run-log file
+     */
+    public Campaign(String id, String title, MaterialSpec material, Surface surface,
+                    List<ParameterSpec> parameters, List<OutcomeSpec> outcomes, List<Target> targets,
+                    List<LinearLimit> limits, List<String> models, Path file, Path runs) {
+        this(id, title, material, surface, parameters, outcomes, targets, limits, models, file, runs,
+                defaultJournal(file));
+    }
+
+    private static Path defaultJournal(Path file) {
+        Objects.requireNonNull(file, "file");
+        Path dir = file.toAbsolutePath().getParent();
+        return dir == null ? Path.of(CampaignReader.DEFAULT_JOURNAL) : dir.resolve(CampaignReader.DEFAULT_JOURNAL);
     }
 
     /**

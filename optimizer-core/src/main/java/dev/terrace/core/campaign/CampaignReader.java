@@ -59,11 +59,13 @@ public final class CampaignReader {
 
     /** Allowed top-level keys of a campaign file. */
     public static final List<String> TOP_KEYS =
-            List.of("campaign", "title", "material", "parameters", "outcomes", "targets", "limits", "models", "runs");
+            List.of("campaign", "title", "material", "parameters", "outcomes", "targets", "limits", "models", "runs", "journal");
     /** Column names the run log reserves for itself. */
     public static final Set<String> RESERVED_COLUMNS = Set.of("run_id", "status", "date", "proposal", "notes");
     /** Default run-log file name when {@code runs:} is absent. */
     public static final String DEFAULT_RUNS = "runs.csv";
+    /** Default proposal-journal file name when {@code journal:} is absent. */
+    public static final String DEFAULT_JOURNAL = "journal.jsonl";
 
     private static final List<String> MATERIAL_KEYS = List.of("substrate", "deposit", "group_v");
     private static final List<String> PARAMETER_KEYS = List.of("unit", "min", "max", "scale", "role", "choices");
@@ -246,13 +248,22 @@ public final class CampaignReader {
         if (runs.isBlank()) {
             error(top.get("runs").getValueNode(), "'runs' must name the run-log CSV file");
         }
+        String journal = Optional.ofNullable(scalarText(top, "journal", root, false)).orElse(DEFAULT_JOURNAL);
+        if (journal.isBlank()) {
+            error(top.get("journal").getValueNode(), "'journal' must name the proposal-journal file"
+                    + " (for example " + DEFAULT_JOURNAL + ")");
+        } else if (journal.strip().equals(runs.strip())) {
+            error(top.get("journal").getValueNode(), "'journal' names the run log " + runs
+                    + "; expected a file of its own (for example " + DEFAULT_JOURNAL + ")");
+        }
         if (id == null || material == null || surface == null || problems.stream().anyMatch(Diagnostic::isError)) {
             return null;
         }
         Path dir = file.toAbsolutePath().getParent();
         Path runsPath = dir == null ? Path.of(runs) : dir.resolve(runs).normalize();
+        Path journalPath = dir == null ? Path.of(journal) : dir.resolve(journal).normalize();
         return new Campaign(id, title, material, surface, parameters, outcomes, targets, limits, models, file,
-                runsPath);
+                runsPath, journalPath);
     }
 
     private Object[] material(Node n) {

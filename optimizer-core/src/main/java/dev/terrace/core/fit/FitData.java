@@ -121,7 +121,8 @@ abstract class FitData {
             }
             Conditions cond = conditions(r);
             List<String> missing = new ArrayList<>();
-            for (Role role : model.requiredInputs()) {
+            // Role order (declaration order), not the model's Set order, which changes between JVM runs
+            for (Role role : model.requiredInputs().stream().sorted().toList()) {
                 if (!cond.has(role)) {
                     missing.add(role.key());
                 }

@@ -344,7 +344,7 @@ final class FitProblem extends FitUncertainty {
                     ? "used although outside the model at the fitted parameters: " + preds[i].validity().reason() : "";
             List<String> cells = censoredCells.get(i);
             if (cells != null) {
-                String c2 = "censored " + String.join(", ", cells) + ", used through the Tobit likelihood";
+                String c2 = String.join(", ", cells) + ", used through the Tobit likelihood";
                 out.add(new RunStatus(r.runId(), RunUse.CENSORED, remark.isEmpty() ? c2 : c2 + "; " + remark));
             } else {
                 out.add(new RunStatus(r.runId(), RunUse.USED, remark));

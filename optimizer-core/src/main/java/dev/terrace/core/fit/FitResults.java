@@ -2,6 +2,8 @@ package dev.terrace.core.fit;
 
 import dev.terrace.spi.ParameterValues;
 
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
@@ -14,6 +16,16 @@ import java.util.Objects;
 public final class FitResults {
 
     private FitResults() {
+    }
+
+    /**
+     * An unmodifiable copy that iterates in the source's order. {@code Map.copyOf} would iterate in
+     * an order that changes from one JVM run to the next, and the fit table and JSON list these maps.
+     */
+    static <K, V> Map<K, V> ordered(Map<K, V> m) {
+        Map<K, V> copy = new LinkedHashMap<>();
+        m.forEach((k, v) -> copy.put(Objects.requireNonNull(k), Objects.requireNonNull(v)));
+        return Collections.unmodifiableMap(copy);
     }
 
     /**
@@ -89,7 +101,8 @@ public final class FitResults {
     /**
      * One combination of discrete choices, fitted and scored.
      *
-     * @param choices   the discrete values (for example critical_size 1, island_dimension 3)
+     * @param choices   the discrete values (for example critical_size 1, island_dimension 3), in the
+     *                  model's declaration order
      * @param aicc      corrected Akaike information criterion, NaN when too few runs to compute it
      * @param minus2LogL  -2 ln L at the optimum
      * @param freeParameters number of fitted continuous parameters (plus one noise level per numeric outcome)
@@ -97,9 +110,9 @@ public final class FitResults {
      */
     public record Candidate(Map<String, Double> choices, double aicc, double minus2LogL, int freeParameters,
                             boolean selected) {
-        /** Copies the map. */
+        /** Copies the map, keeping its order (the model's declaration order of the discrete parameters). */
         public Candidate {
-            choices = Map.copyOf(choices);
+            choices = ordered(choices);
         }
     }
 
@@ -143,7 +156,7 @@ public final class FitResults {
      * @param runsUsed     ok runs used
      * @param excluded     ok runs not used, with reasons
      * @param estimates    every parameter, in the model's order
-     * @param selected     chosen values of discrete parameters
+     * @param selected     chosen values of discrete parameters, in the model's declaration order
      * @param candidates   every discrete combination tried
      * @param outcomes     per-outcome quality
      * @param residuals    per-run residuals
@@ -163,7 +176,7 @@ public final class FitResults {
             excluded = List.copyOf(excluded);
             runs = List.copyOf(runs);
             estimates = List.copyOf(estimates);
-            selected = Map.copyOf(selected);
+            selected = ordered(selected);
             candidates = List.copyOf(candidates);
             outcomes = List.copyOf(outcomes);
             residuals = List.copyOf(residuals);

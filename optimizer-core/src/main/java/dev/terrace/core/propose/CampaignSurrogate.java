@@ -9,11 +9,14 @@ import dev.terrace.core.fit.ModelFitter;
 import dev.terrace.core.model.ModelChain;
 import dev.terrace.core.model.RecipeConverter;
 import dev.terrace.core.plugins.PluginRegistry;
+import dev.terrace.core.runlog.Censored;
 import dev.terrace.core.runlog.Run;
 import dev.terrace.core.space.DesignPoint;
 import dev.terrace.core.space.DesignSpace;
 import dev.terrace.core.surrogate.ClassModel;
 import dev.terrace.core.surrogate.GaussianProcess;
+import dev.terrace.core.surrogate.GpCensoring;
+import dev.terrace.core.surrogate.GpLeaveOneOut;
 import dev.terrace.core.surrogate.GpSettings;
 import dev.terrace.core.surrogate.Predictive;
 import dev.terrace.core.surrogate.SuccessModel;
@@ -35,6 +38,16 @@ import java.util.Map;
  * {@code y - prediction}; at runs where no model gives a valid prediction the prior is the mean of
  * the measured values (a constant), both when training and when predicting.
  *
+ * <p>Censored runs ({@code <X}, {@code >X}) enter each GP by expectation propagation on the bound
+ * ({@link GpCensoring}), after its hyperparameters are fitted on the measured values.
+ *
+ * <p>No-skill rule: when the closed-form leave-one-out predictions of an outcome's GP explain none
+ * of the spread of its measured values (predictive Q&sup2; &le; 0 with at least
+ * {@link GpLeaveOneOut#MIN_RUNS} of them, {@link GpLeaveOneOut#hasSkill}), the noise sd of a new
+ * measurement of that outcome is raised to {@link GpLeaveOneOut#noSkillSpread} (the larger of the
+ * leave-one-out RMSE and the sd of the measured values), so its window probabilities, the yield and
+ * the printed intervals are no sharper than what the runs themselves scatter by; a note says so.
+ *
  * @since 0.1
  */
 public final class CampaignSurrogate {
@@ -55,6 +68,7 @@ public final class CampaignSurrogate {
     private final ModelChain chain;
     private final FitReport fit;
     private final Map<String, GaussianProcess> gps;
+    private final Map<String, GpLeaveOneOut> skill;
     private final Map<String, Double> priorFill;
     private final Map<String, Boolean> physicsPrior;
     private final Map<String, ClassModel> classModels;
@@ -65,7 +79,8 @@ public final class CampaignSurrogate {
     private final int runsUsed;
 
     private CampaignSurrogate(LoadedCampaign lc, DesignSpace space, ModelChain chain, FitReport fit,
-                              Map<String, GaussianProcess> gps, Map<String, Double> priorFill,
+                              Map<String, GaussianProcess> gps, Map<String, GpLeaveOneOut> skill,
+                              Map<String, Double> priorFill,
                               Map<String, Boolean> physicsPrior, Map<String, ClassModel> classModels,
                               SuccessModel success, List<DesignPoint> runPoints, List<Run> encodedRuns,
                               List<String> notes, int runsUsed) {
@@ -74,6 +89,7 @@ public final class CampaignSurrogate {
         this.chain = chain;
         this.fit = fit;
         this.gps = gps;
+        this.skill = skill;
         this.priorFill = priorFill;
         this.physicsPrior = physicsPrior;
         this.classModels = classModels;
@@ -208,7 +224,8 @@ public final class CampaignSurrogate {
             chainAtRuns.add(chain.predict(RecipeConverter.conditions(c, r, false)));
         }
         Map<String, GaussianProcess> gps = new LinkedHashMap<>();
-        Map<String, java.util.concurrent.Callable<GaussianProcess>> gpTasks = new LinkedHashMap<>();
+        Map<String, GpLeaveOneOut> skill = new LinkedHashMap<>();
+        Map<String, java.util.concurrent.Callable<FittedOutcome>> gpTasks = new LinkedHashMap<>();
         Map<String, java.util.concurrent.Callable<ClassModel>> classTasks = new LinkedHashMap<>();
         Map<String, Double> fill = new LinkedHashMap<>();
         Map<String, Boolean> physics = new LinkedHashMap<>();
@@ -235,9 +252,28 @@ public final class CampaignSurrogate {
                 prior.add(priorValue(c, o, chainAtRuns.get(i)));
                 usedRun[i] = true;
             }
+            List<Integer> censoredRuns = new ArrayList<>();
+            for (int i = 0; i < runs.size(); i++) {
+                Run r = runs.get(i);
+                var cc = r.censored(o.name());
+                if (!r.ok() || cc.isEmpty()) {
+                    continue;
+                }
+                if (o.scale() == Scale.LOG && !(cc.get().bound() > 0)) {
+                    notes.add(o.name() + " of run " + r.runId() + " is " + cc.get()
+                            + ", a bound at or below 0 on a log outcome; the surrogate cannot use it");
+                    continue;
+                }
+                censoredRuns.add(i);
+            }
             if (x.isEmpty()) {
+                if (!censoredRuns.isEmpty()) {
+                    notes.add(o.name() + ": only censored values (<X or >X) so far; the surrogate learns from them"
+                            + " once at least one value is measured");
+                }
                 continue;
             }
+            censoredRuns.forEach(i -> usedRun[i] = true);
             double mean = y.stream().mapToDouble(Double::doubleValue).average().orElse(0);
             boolean anyPhysics = prior.stream().anyMatch(Double::isFinite);
             fill.put(o.name(), mean);
@@ -265,7 +301,14 @@ public final class CampaignSurrogate {
             }
             final GpSettings gsf = gs;
             final double[] ppf = pp;
-            gpTasks.put(o.name(), () -> GaussianProcess.fit(x, yy, ppf, gsf, seed));
+            List<GpCensoring.Observation> cens = new ArrayList<>();
+            for (int i : censoredRuns) {
+                Censored cc = runs.get(i).censored(o.name()).orElseThrow();
+                double pv = priorValue(c, o, chainAtRuns.get(i));
+                cens.add(new GpCensoring.Observation(pts.get(i), scaled(o, cc.bound()),
+                        cc.side() == Censored.Side.ABOVE, anyPhysics ? (Double.isFinite(pv) ? pv : mean) : Double.NaN));
+            }
+            gpTasks.put(o.name(), () -> FittedOutcome.fit(x, yy, ppf, gsf, seed, cens));
         }
         Map<String, ClassModel> cms = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -301,13 +344,16 @@ public final class CampaignSurrogate {
         java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(BUILD_THREADS);
         SuccessModel sm;
         try {
-            Map<String, java.util.concurrent.Future<GaussianProcess>> gf = new LinkedHashMap<>();
+            Map<String, java.util.concurrent.Future<FittedOutcome>> gf = new LinkedHashMap<>();
             gpTasks.forEach((k, t) -> gf.put(k, pool.submit(t)));
             Map<String, java.util.concurrent.Future<ClassModel>> cf = new LinkedHashMap<>();
             classTasks.forEach((k, t) -> cf.put(k, pool.submit(t)));
             java.util.concurrent.Future<SuccessModel> sf = pool.submit(() -> SuccessModel.fit(pts, ok, seed));
-            for (Map.Entry<String, java.util.concurrent.Future<GaussianProcess>> e : gf.entrySet()) {
-                gps.put(e.getKey(), join(e.getValue()));
+            for (Map.Entry<String, java.util.concurrent.Future<FittedOutcome>> e : gf.entrySet()) {
+                FittedOutcome fo = join(e.getValue());
+                gps.put(e.getKey(), fo.gp());
+                skill.put(e.getKey(), fo.loo());
+                notes.addAll(fo.notes(e.getKey()));
             }
             for (Map.Entry<String, java.util.concurrent.Future<ClassModel>> e : cf.entrySet()) {
                 cms.put(e.getKey(), join(e.getValue()));
@@ -316,7 +362,34 @@ public final class CampaignSurrogate {
         } finally {
             pool.shutdownNow();
         }
-        return new CampaignSurrogate(lc, space, chain, fit, gps, fill, physics, cms, sm, pts, runs, notes, used);
+        return new CampaignSurrogate(lc, space, chain, fit, gps, skill, fill, physics, cms, sm, pts, runs, notes, used);
+    }
+
+    /** One numeric outcome's GP: fitted on the measured runs, then updated with the censored ones. */
+    record FittedOutcome(GaussianProcess gp, GpLeaveOneOut loo, GpCensoring.Result censoring, int censored) {
+
+        static FittedOutcome fit(List<DesignPoint> x, double[] y, double[] prior, GpSettings gs, long seed,
+                                 List<GpCensoring.Observation> censored) {
+            GaussianProcess measured = GaussianProcess.fit(x, y, prior, gs, seed);
+            GpCensoring.Result cr = GpCensoring.update(measured, censored);
+            return new FittedOutcome(cr.gp(), cr.gp().leaveOneOut(x.size()), cr, censored.size());
+        }
+
+        List<String> notes(String outcome) {
+            List<String> out = new ArrayList<>();
+            if (censored > 0) {
+                out.add(String.format(java.util.Locale.ROOT, "%s: %d censored value%s (<X or >X) used as bounds on the"
+                                + " true value (expectation propagation)%s", outcome, censored, censored == 1 ? "" : "s",
+                        censoring.converged() ? "" : "; the bounds conflict with each other or with measured runs,"
+                                + " so the update stopped after " + censoring.sweeps() + " sweeps"));
+            }
+            if (!loo.hasSkill()) {
+                out.add(String.format(java.util.Locale.ROOT, "%s: no skill: leave-one-out predicts the %d measured values"
+                                + " no better than their mean (Q2 %.2f); its spread is widened to what the runs scatter"
+                                + " by, so the yield claims nothing from this model", outcome, loo.runs(), loo.q2()));
+            }
+            return out;
+        }
     }
 
     /** Threads used to fit the independent surrogates (the machines Terrace targets have 2 cores). */
@@ -453,7 +526,8 @@ public final class CampaignSurrogate {
             Predictive pr = gp.predict(pts, physicsPrior.get(o.name()) ? prior : null);
             mean.put(o.name(), pr.mean());
             sdl.put(o.name(), pr.sdLatent());
-            noise.put(o.name(), pr.noiseSd());
+            GpLeaveOneOut loo = skill.get(o.name());
+            noise.put(o.name(), loo.hasSkill() ? pr.noiseSd() : Math.max(pr.noiseSd(), loo.noSkillSpread()));
         }
         Map<String, double[][]> cls = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -492,7 +566,7 @@ public final class CampaignSurrogate {
             next.put(g.getKey(), g.getValue().condition(p, e.mean().get(g.getKey())[0],
                     physicsPrior.get(o.name()) ? prior : Double.NaN));
         }
-        return new CampaignSurrogate(lc, space, chain, fit, next, priorFill, physicsPrior, classModels, success,
+        return new CampaignSurrogate(lc, space, chain, fit, next, skill, priorFill, physicsPrior, classModels, success,
                 runPoints, encodedRuns, notes, runsUsed);
     }
 
@@ -547,5 +621,13 @@ public final class CampaignSurrogate {
      */
     public boolean hasGp(String outcome) {
         return gps.containsKey(outcome);
+    }
+
+    /**
+     * @param outcome a numeric outcome name
+     * @return the leave-one-out summary of its GP over the measured runs, or empty without a GP
+     */
+    public java.util.Optional<GpLeaveOneOut> leaveOneOut(String outcome) {
+        return java.util.Optional.ofNullable(skill.get(outcome));
     }
 }

@@ -72,9 +72,17 @@ public final class GaussianProcess {
     private final double[] alpha;
     private final double standardisedLml;
     private final int evaluations;
+    /**
+     * Per-run noise variance in standardised units that replaces the fitted noise variance on the
+     * diagonal (censoring sites of {@link GpCensoring}), NaN where the fitted noise applies; null
+     * when every run uses the fitted noise.
+     */
+    private final double[] siteNoise;
 
     private GaussianProcess(List<DesignPoint> points, double[][] flat, double[] z, double[] prior, double offset,
-            double scale, GpHyperparameters hyper, GpSettings settings, GpCholesky factor, int evaluations) {
+            double scale, GpHyperparameters hyper, GpSettings settings, GpCholesky factor, int evaluations,
+            double[] siteNoise) {
+        this.siteNoise = siteNoise;
         this.points = List.copyOf(points);
         this.flat = flat;
         this.z = z;
@@ -163,7 +171,7 @@ public final class GaussianProcess {
             }
             h = GpHyperparameterSearch.hyperparameters(best.theta(), d, c);
         }
-        return build(x, flat, z, m, offset, scale, h, settings, evaluations);
+        return build(x, flat, z, m, offset, scale, h, settings, evaluations, null);
     }
 
     /**
@@ -202,23 +210,117 @@ public final class GaussianProcess {
         for (int i = 0; i < n; i++) {
             z[i] = (r[i] - offset) / scale;
         }
-        return build(x, encode(x), z, m, offset, scale, h, GpSettings.defaults(), 0);
+        return build(x, encode(x), z, m, offset, scale, h, GpSettings.defaults(), 0, null);
     }
 
     private static GaussianProcess build(List<DesignPoint> x, double[][] flat, double[] z, double[] prior,
-            double offset, double scale, GpHyperparameters h, GpSettings settings, int evaluations) {
+            double offset, double scale, GpHyperparameters h, GpSettings settings, int evaluations,
+            double[] siteNoise) {
         GpKernel k = GpKernel.of(h, settings);
         int n = z.length;
         double[] a = new double[n * n];
         for (int j = 0; j < n; j++) {
-            a[j + j * n] = k.k(flat[j], flat[j]) + h.noiseVariance();
+            double noise = siteNoise != null && !Double.isNaN(siteNoise[j]) ? siteNoise[j] : h.noiseVariance();
+            a[j + j * n] = k.k(flat[j], flat[j]) + noise;
             for (int i = j + 1; i < n; i++) {
                 a[i + j * n] = k.k(flat[i], flat[j]);
             }
         }
         GpCholesky f = GpCholesky.factor(a, n, h.signalVariance());
-        return new GaussianProcess(x, flat, z, prior, offset, scale, h, settings, f, evaluations);
+        return new GaussianProcess(x, flat, z, prior, offset, scale, h, settings, f, evaluations, siteNoise);
     }
+
+    /**
+     * This GP's hyperparameters, centring and scaling with more runs given in standardised units,
+     * each with its own noise variance: the Gaussian sites by which {@link GpCensoring} stands in for
+     * censored runs (Rasmussen &amp; Williams 2006, section 3.6: a site is an unnormalised Gaussian in
+     * the latent value, equivalent to an observation with its own noise).
+     *
+     * @param x        the extra runs' design points
+     * @param z        their site means in standardised units
+     * @param prior    their prior means (fitting scale), finite when this GP uses a prior mean; else ignored
+     * @param variance their site variances in standardised units, each &gt; 0 and finite
+     * @return the new GP; never null. This GP is unchanged.
+     */
+    GaussianProcess withSites(List<DesignPoint> x, double[] z, double[] prior, double[] variance) {
+        int n = this.z.length;
+        int m = x.size();
+        if (z.length != m || variance.length != m || (this.prior != null && prior.length != m)) {
+            throw new IllegalArgumentException("site arrays differ in length");
+        }
+        double[][] f2 = java.util.Arrays.copyOf(flat, n + m);
+        double[] z2 = java.util.Arrays.copyOf(this.z, n + m);
+        double[] noise = new double[n + m];
+        java.util.Arrays.fill(noise, Double.NaN);
+        if (siteNoise != null) {
+            System.arraycopy(siteNoise, 0, noise, 0, n);
+        }
+        double[] p2 = this.prior == null ? null : java.util.Arrays.copyOf(this.prior, n + m);
+        List<DesignPoint> pts = new ArrayList<>(points);
+        for (int j = 0; j < m; j++) {
+            f2[n + j] = encodeChecked(x.get(j));
+            if (!Double.isFinite(z[j]) || !(variance[j] > 0) || !Double.isFinite(variance[j])) {
+                throw new IllegalArgumentException("site " + j + " is not finite or has no positive variance");
+            }
+            z2[n + j] = z[j];
+            noise[n + j] = variance[j];
+            if (p2 != null) {
+                if (!Double.isFinite(prior[j])) {
+                    throw new IllegalArgumentException("this GP uses a prior mean: give a finite prior mean at site " + j);
+                }
+                p2[n + j] = prior[j];
+            }
+            pts.add(x.get(j));
+        }
+        return build(pts, f2, z2, p2, offset, scale, hyper, settings, evaluations, noise);
+    }
+
+    /**
+     * Closed-form leave-one-out predictions of the first {@code rows} runs (Rasmussen &amp; Williams
+     * 2006, eqs. 5.10-5.12): with K the covariance of the runs plus noise and &alpha; = K⁻¹z, the
+     * prediction of run i from all others has mean z_i &minus; &alpha;_i/[K⁻¹]_ii and variance
+     * 1/[K⁻¹]_ii, at the same hyperparameters. [K⁻¹]_ii = &Vert;L⁻¹e_i&Vert;&sup2; costs one
+     * triangular solve per run; above {@value #LOO_MAX_ROWS} runs an evenly spaced subset of that
+     * many is used.
+     *
+     * @param rows how many leading runs to score (the measured runs; sites appended by
+     *             {@link #withSites} come after them), 1 to {@link #n()}
+     * @return the leave-one-out summary on the fitting scale; never null
+     */
+    public GpLeaveOneOut leaveOneOut(int rows) {
+        int n = z.length;
+        if (rows < 1 || rows > n) {
+            throw new IllegalArgumentException("rows must be 1 to " + n + ": " + rows);
+        }
+        int m = Math.min(rows, LOO_MAX_ROWS);
+        int[] pick = new int[m];
+        for (int j = 0; j < m; j++) {
+            pick[j] = (int) ((long) j * rows / m);
+        }
+        double[] e = new double[n * m];
+        for (int j = 0; j < m; j++) {
+            e[pick[j] + j * n] = 1;
+        }
+        factor.lowerSolveInPlace(e, m);
+        double[] y = new double[m];
+        double[] err = new double[m];
+        double[] var = new double[m];
+        for (int j = 0; j < m; j++) {
+            double d = 0;
+            for (int r = 0; r < n; r++) {
+                double v = e[r + j * n];
+                d += v * v;
+            }
+            int i = pick[j];
+            y[j] = (prior == null ? 0 : prior[i]) + offset + scale * z[i];
+            err[j] = scale * alpha[i] / d;
+            var[j] = scale * scale / d;
+        }
+        return GpLeaveOneOut.of(y, err, var);
+    }
+
+    /** Most runs scored by {@link #leaveOneOut}: 400 triangular solves keep it well under a fit's cost. */
+    public static final int LOO_MAX_ROWS = 400;
 
     /**
      * Posterior predictions at a batch of points, evaluated in chunks of {@value #PREDICT_CHUNK}:
@@ -306,11 +408,15 @@ public final class GaussianProcess {
         }
         List<DesignPoint> pts = new ArrayList<>(points);
         pts.add(x);
+        double[] noise2 = siteNoise == null ? null : java.util.Arrays.copyOf(siteNoise, n + 1);
+        if (noise2 != null) {
+            noise2[n] = Double.NaN;
+        }
         GpCholesky extended = extend(v);
         if (extended == null) {
-            return build(pts, f2, z2, p2, offset, scale, hyper, settings, evaluations);
+            return build(pts, f2, z2, p2, offset, scale, hyper, settings, evaluations, noise2);
         }
-        return new GaussianProcess(pts, f2, z2, p2, offset, scale, hyper, settings, extended, evaluations);
+        return new GaussianProcess(pts, f2, z2, p2, offset, scale, hyper, settings, extended, evaluations, noise2);
     }
 
     /** Extends L by one row, or returns null when the new pivot is not positive. */

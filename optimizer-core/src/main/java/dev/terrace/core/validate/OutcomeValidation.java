@@ -18,16 +18,24 @@ import java.util.Set;
  *                    outcome (no growth model for it, say) is absent; copied, order kept, never null
  * @param parity      held-out predictions of the three surrogates (numeric outcomes only, empty for
  *                    classes), in campaign units; copied, never null
+ * @param proposalVerdict the verdict on the proposal surrogate ({@link Validation#PROPOSAL}) for this
+ *                    outcome, in plain words; never null, empty when it was not judged
  * @since 0.1
  */
 public record OutcomeValidation(String outcome, String scale, Map<String, Score> bySurrogate,
-                                List<ParityPoint> parity) {
+                                List<ParityPoint> parity, String proposalVerdict) {
 
     private static final Set<String> SCALES = Set.of("log10", "linear", "class");
+
+    /** Scores without a verdict on the proposal surrogate. */
+    public OutcomeValidation(String outcome, String scale, Map<String, Score> bySurrogate, List<ParityPoint> parity) {
+        this(outcome, scale, bySurrogate, parity, "");
+    }
 
     /** Copies and checks the contents. */
     public OutcomeValidation {
         Objects.requireNonNull(outcome, "outcome");
+        Objects.requireNonNull(proposalVerdict, "proposalVerdict");
         if (outcome.isBlank()) {
             throw new IllegalArgumentException("blank outcome");
         }

@@ -18,14 +18,12 @@ import dev.terrace.core.space.DesignPoint;
 import dev.terrace.core.space.DesignSpace;
 import dev.terrace.core.surrogate.ClassModel;
 import dev.terrace.spi.GrowthModel;
-import org.apache.commons.math3.util.CombinatoricsUtils;
 
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
@@ -51,13 +49,24 @@ import java.util.Set;
  *       for an outcome no model predicts.</li>
  *   <li>{@value #GP}: {@link CampaignSurrogate} with the physics switched off (a Gaussian process
  *       around the training mean, classifiers from uniform priors).</li>
- *   <li>{@value #PHYSICS_GP}: {@link CampaignSurrogate} as {@code terrace propose} uses it: the
- *       GP on the residual of the growth models. Its chain is also the {@value #PHYSICS}
- *       surrogate of the fold, so the models are fitted once per fold.</li>
+ *   <li>{@value #PHYSICS_GP}, the <b>proposal surrogate</b> ({@link #PROPOSAL}): {@link
+ *       CampaignSurrogate#build(LoadedCampaign, PluginRegistry, boolean, long)} with the physics on,
+ *       exactly as {@code terrace propose} builds it by default: the GP on the residual of the
+ *       growth models (the GP alone when the campaign lists no models, as in propose). Its chain is
+ *       also the {@value #PHYSICS} surrogate of the fold, so the models are fitted once per fold.
+ *       It is reported first; the others are comparisons.</li>
  *   <li>{@value #MEAN}: the trivial predictor, a Gaussian with the training runs' mean and sample
  *       variance (numeric outcomes), or the training class frequencies with add-one (Laplace)
- *       smoothing (class outcomes). It is the reference of the MSLL and of the verdict.</li>
+ *       smoothing (class outcomes). It is the reference of the MSLL, and the baseline the proposal
+ *       surrogate must beat in the verdict.</li>
  * </ul>
+ *
+ * <p><b>Verdict.</b> Each outcome's verdict opens with the proposal surrogate: its RMSE (log loss
+ * for classes) against the trivial predictor's, and for numeric outcomes how many held-out runs its
+ * 90 % intervals cover ("11 of 13"). Coverage is read with a one-sided exact binomial test: with n
+ * held-out runs and honest intervals the count inside is Binomial(n, 0.9), and a count whose lower
+ * (or upper) tail probability is below {@link #COVERAGE_TAIL} is called implausibly low (too narrow)
+ * or implausibly high (too wide). The best surrogate and the physics prior follow as comparisons.
  *
  * <p><b>Metrics</b> (numeric outcomes on their fitting scale, log10 for {@code scale: log}): RMSE
  * of the predictive mean; coverage of the central 90 % interval of a new measurement, mean ± {@link
@@ -84,10 +93,16 @@ public final class Validation {
     public static final String GP = "gp";
     /** Key of the Gaussian process on the growth models' residual. */
     public static final String PHYSICS_GP = "physics+gp";
+    /** Key of the surrogate {@code terrace propose} builds (growth models + GP on their residual). */
+    public static final String PROPOSAL = PHYSICS_GP;
+    /** Plain name of {@link #PROPOSAL} in reports. */
+    public static final String PROPOSAL_LABEL = "proposal surrogate";
     /** Key of the trivial predictor (training mean and variance, or class frequencies). */
     public static final String MEAN = "mean";
-    /** The three surrogates in report order. */
+    /** The three surrogates, in the order they are scored. */
     public static final List<String> SURROGATES = List.of(PHYSICS, GP, PHYSICS_GP);
+    /** Report order: the proposal surrogate first, then the comparisons, then the trivial predictor. */
+    public static final List<String> REPORT_ORDER = List.of(PROPOSAL, PHYSICS, GP, MEAN);
     /**
      * Fewest ok runs with a measured outcome for a validation, and fewest ok runs measuring an
      * outcome for that outcome to be validated: holding one out leaves two, the least that gives a
@@ -448,11 +463,15 @@ public final class Validation {
             if (scores.isEmpty()) {
                 continue;
             }
-            OutcomeValidation ov = new OutcomeValidation(o.name(), scaleName(o), scores, parity);
+            String proposal = ValidationVerdict.proposalVerdict(o, new OutcomeValidation(o.name(), scaleName(o), scores, parity));
+            OutcomeValidation ov = new OutcomeValidation(o.name(), scaleName(o), scores, parity, proposal);
             outs.add(ov);
-            Optional<String> best = best(ov);
+            Optional<String> best = ValidationVerdict.best(ov);
             best.ifPresent(b -> bestByOutcome.put(o.name(), b));
-            outcomeLines.addAll(verdict(c, o, ov, hasModels, physicsCovers.contains(o.name()), m.get(MEAN).size()));
+            if (!proposal.isEmpty()) {
+                outcomeLines.add(proposal);
+            }
+            outcomeLines.addAll(ValidationVerdict.verdict(c, o, ov, hasModels, physicsCovers.contains(o.name()), m.get(MEAN).size()));
         }
 
         List<String> verdict = new ArrayList<>();
@@ -736,189 +755,5 @@ public final class Validation {
             }
             return out;
         }
-    }
-
-    // ------------------------------------------------------------------ verdict
-
-    /** The surrogate with the lowest RMSE (numeric) or log loss (classes); the first in report order on a tie. */
-    static Optional<String> best(OutcomeValidation ov) {
-        String best = null;
-        double bestV = Double.POSITIVE_INFINITY;
-        for (String s : SURROGATES) {
-            Optional<Score> sc = ov.score(s);
-            if (sc.isEmpty()) {
-                continue;
-            }
-            double v = error(sc.get());
-            if (v < bestV) {
-                bestV = v;
-                best = s;
-            }
-        }
-        return Optional.ofNullable(best);
-    }
-
-    private static double error(Score s) {
-        return s.forClasses() ? s.logLoss() : s.rmse();
-    }
-
-    static List<String> verdict(Campaign c, OutcomeSpec o, OutcomeValidation ov, boolean hasModels,
-                                boolean physicsCovers, int heldOut) {
-        List<String> out = new ArrayList<>();
-        String name = o.name();
-        Optional<String> bestKey = best(ov);
-        if (bestKey.isEmpty()) {
-            out.add("no surrogate could predict " + name);
-            return out;
-        }
-        String b = bestKey.get();
-        Score best = ov.score(b).orElseThrow();
-        Score mean = ov.score(MEAN).orElseThrow();
-        boolean cls = o.isClass();
-        String metric = cls ? "log loss" : "RMSE";
-        String unit = cls ? " nats" : o.scale() == Scale.LOG ? " log10" : (o.unit().symbol().isEmpty() ? ""
-                : " " + o.unit().symbol());
-        if (cls) {
-            out.add(b + " predicts " + name + " best: log loss " + fmt(best.logLoss()) + " nats, most likely class"
-                    + " right for " + best.hits() + " of " + best.n() + " held-out runs");
-        } else {
-            out.add(b + " predicts " + name + " best: RMSE " + fmt(best.rmse()) + unit
-                    + (o.scale() == Scale.LOG ? " (a factor of " + fmt(Math.pow(10, best.rmse())) + ")" : "")
-                    + ", MSLL " + signed(best.msll()) + " over " + best.n() + " held-out runs");
-        }
-        // against the trivial predictor
-        String what = (cls ? "the log loss on " : "the error on ") + name;
-        if (error(best) >= NO_BETTER_THAN_MEAN * error(mean)) {
-            out.add(name + " is predicted no better than " + (cls ? "from the class frequencies of the other runs"
-                    : "its mean") + " (" + metric + " " + fmt(error(best)) + " vs " + fmt(error(mean)) + unit
-                    + " for the " + (cls ? "frequencies" : "training mean") + ")");
-        } else {
-            out.add("compared with " + (cls ? "the class frequencies of the other runs" : "the training mean") + ", "
-                    + b + " " + reduction(error(mean) / error(best), what) + " (" + metric + " " + fmt(error(best))
-                    + " vs " + fmt(error(mean)) + unit + ")");
-        }
-        // the physics prior
-        Optional<Score> gp = ov.score(GP);
-        Optional<Score> pg = ov.score(PHYSICS_GP);
-        if (hasModels && physicsCovers && gp.isPresent() && pg.isPresent()) {
-            double r = error(gp.get()) / error(pg.get());
-            String nums = " (" + metric + " " + fmt(error(pg.get())) + " vs " + fmt(error(gp.get())) + unit + ")";
-            if (r >= CLEAR_RATIO) {
-                out.add("the physics prior " + reduction(r, what) + nums);
-            } else if (r <= 1 / CLEAR_RATIO) {
-                out.add("the physics prior raises " + what + " by " + Math.round(100 * (1 / r - 1)) + " %" + nums
-                        + "; check the growth models against these runs");
-            } else {
-                out.add("the physics prior makes little difference to " + what + nums);
-            }
-        } else if (hasModels && !physicsCovers) {
-            out.add("no growth model of the campaign predicts " + name + (o.role() == null ? " (it has no role)" : ""));
-        }
-        // the growth models alone
-        Optional<Score> ph = ov.score(PHYSICS);
-        if (ph.isPresent()) {
-            if (ph.get().n() < heldOut) {
-                out.add("the growth models predict " + name + " for only " + ph.get().n() + " of " + heldOut
-                        + " held-out runs");
-            }
-            if (!b.equals(PHYSICS) && error(ph.get()) >= NO_BETTER_THAN_MEAN * error(mean)) {
-                out.add("the growth models alone predict " + name + " no better than "
-                        + (cls ? "the class frequencies" : "its mean") + " (" + metric + " "
-                        + fmt(error(ph.get())) + " vs " + fmt(error(mean)) + unit + ")");
-            }
-        }
-        if (!cls) {
-            out.add(coverage(b, best));
-            List<String> worse = new ArrayList<>();
-            List<String> values = new ArrayList<>();
-            for (String s : SURROGATES) {
-                Optional<Score> sc = ov.score(s);
-                if (sc.isPresent() && sc.get().msll() > 0) {
-                    worse.add(s);
-                    values.add(signed(sc.get().msll()));
-                }
-            }
-            if (!worse.isEmpty()) {
-                boolean one = worse.size() == 1;
-                out.add("the predictive densities of " + String.join(" and ", worse) + " for " + name
-                        + " score worse than a plain Gaussian around the training mean (MSLL "
-                        + String.join(", ", values) + "): " + (one ? "its" : "their")
-                        + " intervals are too narrow at some held-out runs");
-            }
-        }
-        return out;
-    }
-
-    /** "90 % intervals of X cover k of n held-out runs", with a binomial reading of k. */
-    static String coverage(String surrogate, Score s) {
-        int k = s.hits();
-        int n = s.n();
-        String line = "90 % intervals of " + surrogate + " cover " + k + " of " + n + " held-out run"
-                + (n == 1 ? "" : "s");
-        if (binomialCdf(k, n, 0.9) < COVERAGE_TAIL) {
-            line += " (too narrow: about " + Math.round(0.9 * n) + " expected)";
-        } else if (k > 0 && 1 - binomialCdf(k - 1, n, 0.9) < COVERAGE_TAIL) {
-            line += " (wider than needed: about " + Math.round(0.9 * n) + " expected)";
-        }
-        return line;
-    }
-
-    /** P(X &le; k) for X ~ Binomial(n, p), summed in logs. */
-    static double binomialCdf(int k, int n, double p) {
-        if (k < 0) {
-            return 0;
-        }
-        if (k >= n) {
-            return 1;
-        }
-        double sum = 0;
-        for (int j = 0; j <= k; j++) {
-            sum += Math.exp(CombinatoricsUtils.binomialCoefficientLog(n, j) + j * Math.log(p)
-                    + (n - j) * Math.log1p(-p));
-        }
-        return Math.min(sum, 1);
-    }
-
-    /**
-     * How a ratio old/new &gt; 1 of errors reads: "halves the error on x", "cuts the error on x by 30 %".
-     *
-     * @param ratio old error over new error
-     * @param what  the error named, for example "the error on dot_density"
-     * @return the phrase
-     */
-    static String reduction(double ratio, String what) {
-        if (!Double.isFinite(ratio)) {
-            return "removes " + what;
-        }
-        if (ratio >= 1.8 && ratio < 2.25) {
-            return "halves " + what;
-        }
-        if (ratio >= 2.7 && ratio < 3.4) {
-            return "cuts " + what + " to a third";
-        }
-        if (ratio >= 3.4) {
-            return "cuts " + what + " by a factor of " + fmt(ratio);
-        }
-        return "cuts " + what + " by " + Math.round(100 * (1 - 1 / ratio)) + " %";
-    }
-
-    static String signed(double v) {
-        return (v >= 0 ? "+" : "") + fmt(v);
-    }
-
-    /** Two to three significant digits, plain or scientific; "n/a" for a non-finite value. */
-    static String fmt(double v) {
-        if (!Double.isFinite(v)) {
-            return "n/a";
-        }
-        double a = Math.abs(v);
-        if (a != 0 && (a >= 1e5 || a < 1e-2)) {
-            return String.format(Locale.ROOT, "%.2e", v);
-        }
-        String s = String.format(Locale.ROOT, "%.3g", v);
-        if (s.contains(".")) {
-            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
-        }
-        return s;
     }
 }

@@ -37,7 +37,7 @@ class GaussianProcessHpoTest {
     }
 
     @Test
-    void hartmannTranscriptionMatchesItsCheckValue() {
+    void hartmannCopyMatchesItsCheckValue() {
         // f(0.5^6) = -0.5053149917022333: computed independently with numpy (IEEE double) from the VLSE
         // formula and confirmed with mpmath (50 digits), an independent reference library; tolerance 1e-15
         // is a test design choice

@@ -195,8 +195,8 @@ class ValidationTest {
         assertEquals(0.0, ph.msll(), 0.05);
         Score mean = ov.score(Validation.MEAN).orElseThrow();
         assertTrue(ph.rmse() >= 0.95 * mean.rmse(), ph + " vs " + mean);
-        assertTrue(rep.verdict().contains("size is predicted no better than its mean (RMSE " + Validation.fmt(ph.rmse())
-                + " vs " + Validation.fmt(mean.rmse()) + " nm for the training mean)"), rep.verdict().toString());
+        assertTrue(rep.verdict().contains("size is predicted no better than its mean (RMSE " + ValidationVerdict.fmt(ph.rmse())
+                + " vs " + ValidationVerdict.fmt(mean.rmse()) + " nm for the training mean)"), rep.verdict().toString());
     }
 
     @Test
@@ -321,12 +321,29 @@ class ValidationTest {
         assertEquals(new NormalDistribution(null, 0, 1).inverseCumulativeProbability(0.95), Validation.Z90, 1e-12);
         BinomialDistribution bin = new BinomialDistribution(null, 13, 0.9);
         for (int k = 0; k <= 13; k++) {
-            assertEquals(bin.cumulativeProbability(k), Validation.binomialCdf(k, 13, 0.9), 1e-12, "k=" + k);
+            assertEquals(bin.cumulativeProbability(k), ValidationVerdict.binomialCdf(k, 13, 0.9), 1e-12, "k=" + k);
         }
         // 12 of 13 is what 90 % intervals should give; 8 of 13 is too narrow (P(X <= 8) = 0.009)
         assertEquals("90 % intervals of gp cover 12 of 13 held-out runs",
-                Validation.coverage("gp", Score.numeric(13, 0.1, 12 / 13.0, -1)));
-        assertTrue(Validation.coverage("gp", Score.numeric(13, 0.1, 8 / 13.0, -1)).contains("too narrow"));
+                ValidationVerdict.coverage("gp", Score.numeric(13, 0.1, 12 / 13.0, -1)));
+        assertTrue(ValidationVerdict.coverage("gp", Score.numeric(13, 0.1, 8 / 13.0, -1)).contains("too narrow"));
+    }
+
+    @Test
+    void proposalCoverageReadingNamesCountsAndTheOneSidedBinomialTails() {
+        // reference library: Commons Math binomial distribution (tails of Binomial(n, 0.9))
+        BinomialDistribution b13 = new BinomialDistribution(null, 13, 0.9);
+        String low = ValidationVerdict.coverageReading(Score.numeric(13, 0.1, 8 / 13.0, -1));
+        assertTrue(low.startsWith("90 % intervals cover 8 of 13 held-out runs (implausibly low for 13 runs"), low);
+        assertTrue(low.contains("P(X <= 8) = " + ValidationVerdict.fmt(b13.cumulativeProbability(8))), low);
+        String ok = ValidationVerdict.coverageReading(Score.numeric(13, 0.1, 11 / 13.0, -1));
+        assertEquals("90 % intervals cover 11 of 13 held-out runs (plausible for 13 runs by a one-sided binomial"
+                + " check)", ok);
+        // 40 of 40: P(X >= 40) = 0.9^40 = 0.0148 < 0.05, too many inside for honest 90 % intervals
+        BinomialDistribution b40 = new BinomialDistribution(null, 40, 0.9);
+        String high = ValidationVerdict.coverageReading(Score.numeric(40, 0.1, 1.0, -1));
+        assertTrue(high.contains("implausibly high for 40 runs"), high);
+        assertTrue(high.contains("P(X >= 40) = " + ValidationVerdict.fmt(1 - b40.cumulativeProbability(39))), high);
     }
 
     @Test
@@ -342,10 +359,10 @@ class ValidationTest {
 
     @Test
     void verdictPhrasesReadTheRatioInPlainWords() {
-        assertEquals("halves the error on x", Validation.reduction(2.08, "the error on x"));
-        assertEquals("cuts the error on x by 25 %", Validation.reduction(4.0 / 3, "the error on x"));
-        assertEquals("cuts the error on x to a third", Validation.reduction(3.0, "the error on x"));
-        assertEquals("cuts the error on x by a factor of 4.76", Validation.reduction(4.76, "the error on x"));
+        assertEquals("halves the error on x", ValidationVerdict.reduction(2.08, "the error on x"));
+        assertEquals("cuts the error on x by 25 %", ValidationVerdict.reduction(4.0 / 3, "the error on x"));
+        assertEquals("cuts the error on x to a third", ValidationVerdict.reduction(3.0, "the error on x"));
+        assertEquals("cuts the error on x by a factor of 4.76", ValidationVerdict.reduction(4.76, "the error on x"));
     }
 
     static double[] sizes(LoadedCampaign lc) {

@@ -1,0 +1,426 @@
+package dev.terrace.cli.plot;
+
+import dev.terrace.core.CheckSummary;
+import dev.terrace.core.campaign.Campaign;
+import dev.terrace.core.campaign.ParameterSpec;
+import dev.terrace.core.campaign.Scale;
+import dev.terrace.core.campaign.Target;
+import dev.terrace.core.propose.Proposals.Proposal;
+import dev.terrace.core.runlog.Run;
+import dev.terrace.core.window.WindowMap;
+import dev.terrace.core.window.WindowMapResult;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.LegendItem;
+import org.jfree.chart.LegendItemCollection;
+import org.jfree.chart.annotations.XYTextAnnotation;
+import org.jfree.chart.axis.AxisLocation;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.ValueAxis;
+import org.jfree.chart.block.BlockBorder;
+import org.jfree.chart.plot.DatasetRenderingOrder;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.LookupPaintScale;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.title.LegendTitle;
+import org.jfree.chart.title.PaintScaleLegend;
+import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.ui.RectangleInsets;
+import org.jfree.chart.ui.TextAnchor;
+import org.jfree.data.xy.DefaultXYZDataset;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Shape;
+import java.awt.Stroke;
+import java.awt.geom.Line2D;
+import java.awt.geom.Rectangle2D;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+
+import static dev.terrace.cli.plot.ChartStyle.*;
+
+/**
+ * The process-window map chart (see {@link Plots#windowMap}).
+ *
+ * @since 0.1
+ */
+final class WindowMapChart {
+
+    private WindowMapChart() {
+    }
+
+    /**
+     * A process-window map: the predicted yield as a heat map, the class regions with their
+     * boundaries and names, the window's edge (yield {@value WindowMap#WINDOW_THRESHOLD}), cells
+     * that break a limit hatched, measured runs and proposals on top.
+     *
+     * <p>Runs are drawn at their own x and y (their other settings may differ from the held ones):
+     * one marker shape per class of the mapped class outcome, filled black when the run met every
+     * target and hollow (white) otherwise; failed runs are crosses (×). Proposals are bold plus
+     * signs labelled with their rank.
+     *
+     * @param map       the map
+     * @param runs      measured runs to overlay; may be empty, never null
+     * @param proposals proposals to overlay; may be empty, never null
+     * @param c         the campaign (targets, for "met spec")
+     * @return the chart; never null
+     */
+    public static JFreeChart windowMap(WindowMapResult map, List<Run> runs, List<Proposal> proposals, Campaign c) {
+        Objects.requireNonNull(map, "map");
+        Objects.requireNonNull(runs, "runs");
+        Objects.requireNonNull(proposals, "proposals");
+        Objects.requireNonNull(c, "c");
+        ParameterSpec xp = map.x();
+        ParameterSpec yp = map.y();
+        int nx = map.nx();
+        int ny = map.ny();
+        // dataset 0: the cells
+        double[] xs = new double[nx * ny];
+        double[] ys = new double[nx * ny];
+        double[] zs = new double[nx * ny];
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                int k = j * nx + i;
+                xs[k] = map.xAt(i);
+                ys[k] = map.yAt(j);
+                zs[k] = map.yieldAt(i, j);
+            }
+        }
+        DefaultXYZDataset cells = new DefaultXYZDataset();
+        cells.addSeries("predicted yield", new double[][] {xs, ys, zs});
+        LookupPaintScale scale = YieldRamp.paintScale(YieldRamp.STEPS);
+        // contour nodes: the cell centres plus the box edges (edge values repeated), so that the
+        // window's edge runs on to the border of the box
+        double[] ux = new double[nx + 2];
+        double[] uy = new double[ny + 2];
+        for (int i = 0; i < nx; i++) {
+            ux[i + 1] = (i + 0.5) / nx;
+        }
+        for (int j = 0; j < ny; j++) {
+            uy[j + 1] = (j + 0.5) / ny;
+        }
+        ux[nx + 1] = 1;
+        uy[ny + 1] = 1;
+        List<double[]> window = Contours.chain(toData(Contours.segments(padded(map.yield()), ux, uy,
+                WindowMap.WINDOW_THRESHOLD), xp, yp));
+        List<double[]> plainWindow = map.robust() ? Contours.chain(toData(Contours.segments(padded(map.plainYield()),
+                ux, uy, WindowMap.WINDOW_THRESHOLD), xp, yp)) : List.of();
+        List<double[]> classEdges = classEdges(map);
+        MapLayerRenderer cellRenderer = new MapLayerRenderer(map, scale, classEdges, window, plainWindow);
+        ValueAxis xAxis = axis(xp);
+        ValueAxis yAxis = axis(yp);
+        XYPlot plot = new XYPlot(cells, xAxis, yAxis, cellRenderer);
+        plot.setDatasetRenderingOrder(DatasetRenderingOrder.FORWARD);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinesVisible(false);
+        plot.setRangeGridlinesVisible(false);
+        plot.setAxisOffset(RectangleInsets.ZERO_INSETS);
+        plot.setOutlinePaint(INK);
+
+        LegendItemCollection legend = new LegendItemCollection();
+        // dataset 1: measured runs, one series per (class, met spec)
+        XYSeriesCollection runData = new XYSeriesCollection();
+        XYLineAndShapeRenderer runRenderer = markerRenderer();
+        Map<String, XYSeries> bySeries = new LinkedHashMap<>();
+        Map<String, Shape> shapes = new LinkedHashMap<>();
+        Map<String, Boolean> filled = new LinkedHashMap<>();
+        for (Run r : runs) {
+            if (r.number(xp.name()).isEmpty() || r.number(yp.name()).isEmpty()) {
+                continue;
+            }
+            String key;
+            Shape shape;
+            boolean fill;
+            if (!r.ok()) {
+                key = "failed run";
+                shape = MarkerShapes.failed();
+                fill = true;
+            } else {
+                String cls = map.classOutcome() == null ? null : r.category(map.classOutcome()).orElse(null);
+                boolean met = metSpec(c, r);
+                String what = cls == null ? (map.classOutcome() == null ? "run" : "run, class not recorded") : cls;
+                key = what + (met ? ", met spec" : ", missed spec");
+                int idx = cls == null ? -1 : map.classes().indexOf(cls);
+                shape = idx < 0 ? (map.classOutcome() == null ? MarkerShapes.forClass(0) : MarkerShapes.unclassified())
+                        : MarkerShapes.forClass(idx);
+                fill = met;
+            }
+            bySeries.computeIfAbsent(key, k -> new XYSeries(k, false, true)).add(r.number(xp.name()).getAsDouble(),
+                    r.number(yp.name()).getAsDouble());
+            shapes.put(key, shape);
+            filled.put(key, fill);
+        }
+        List<String> keys = new ArrayList<>(bySeries.keySet());
+        keys.sort((a, b) -> Integer.compare(order(a, map), order(b, map)));
+        for (String k : keys) {
+            int s = runData.getSeriesCount();
+            runData.addSeries(bySeries.get(k));
+            boolean fill = filled.get(k);
+            styleMarker(runRenderer, s, shapes.get(k), fill ? INK : Color.WHITE, fill ? Color.WHITE : INK);
+            legend.add(markerItem(k, shapes.get(k), fill ? INK : Color.WHITE, fill ? Color.WHITE : INK));
+        }
+        plot.setDataset(1, runData);
+        plot.setRenderer(1, runRenderer);
+        // dataset 2: proposals
+        XYSeriesCollection propData = new XYSeriesCollection();
+        XYSeries ps = new XYSeries("proposals", false, true);
+        for (Proposal p : proposals) {
+            Object vx = p.recipe().get(xp.name());
+            Object vy = p.recipe().get(yp.name());
+            if (vx instanceof Double && vy instanceof Double && Double.isFinite((Double) vx) && Double.isFinite((Double) vy)) {
+                ps.add((Double) vx, (Double) vy);
+                int number = p.rank() > 0 ? p.rank() : ps.getItemCount();
+                XYTextAnnotation t = boxed(" " + number + " ", (Double) vx, (Double) vy,
+                        labelAnchor(number, xp.toUnit((Double) vx), yp.toUnit((Double) vy)));
+                plot.addAnnotation(t);
+            }
+        }
+        XYLineAndShapeRenderer propRenderer = markerRenderer();
+        if (ps.getItemCount() > 0) {
+            propData.addSeries(ps);
+            styleMarker(propRenderer, 0, MarkerShapes.proposal(), INK, Color.WHITE);
+            legend.add(markerItem("proposal (number = rank)", MarkerShapes.proposal(), INK, Color.WHITE));
+        }
+        plot.setDataset(2, propData);
+        plot.setRenderer(2, propRenderer);
+        // class names at the regions
+        for (WindowMapResult.ClassRegion r : map.classRegions()) {
+            if (r.fraction() >= Plots.LABEL_MIN_SHARE && r.cells() >= 3) {
+                plot.addAnnotation(boxed(r.className(), r.x(), r.y(), TextAnchor.CENTER));
+            }
+        }
+        if (map.classOutcome() != null) {
+            legend.add(lineItem("boundary between most likely " + map.classOutcome() + " classes", CLASS_LEGEND));
+        }
+        legend.add(lineItem(map.robust() ? String.format(Locale.ROOT, "window edge with a %s K thermocouple error",
+                Labels.num(map.temperatureUncertaintyK())) : "window edge (yield 0.5)", WINDOW_LEGEND));
+        if (map.robust()) {
+            legend.add(lineItem("window edge at the set point", PLAIN_LEGEND));
+        }
+        boolean anyInfeasible = false;
+        for (int j = 0; j < ny && !anyInfeasible; j++) {
+            for (int i = 0; i < nx; i++) {
+                if (!map.feasibleAt(i, j)) {
+                    anyInfeasible = true;
+                    break;
+                }
+            }
+        }
+        if (anyInfeasible) {
+            legend.add(new LegendItem("hatched: breaks a campaign limit", null, null, null, true,
+                    new Rectangle2D.Double(-6, -6, 12, 12), true, new HatchSwatch(), true, INK, new BasicStroke(1f),
+                    false, new Line2D.Double(), new BasicStroke(1f), INK));
+        }
+        plot.setFixedLegendItems(legend);
+
+        String title = "Process window: " + yp.name() + " against " + xp.name();
+        JFreeChart chart = new JFreeChart(title, TITLE_FONT, plot, false);
+        chart.setBackgroundPaint(Color.WHITE);
+        chart.addSubtitle(text("Campaign " + c.id() + ". " + held(map, c)));
+        chart.addSubtitle(text(windowLine(map) + "  Predictions, not measurements."));
+        NumberAxis za = new NumberAxis("predicted yield");
+        za.setRange(0, 1);
+        za.setTickUnit(new org.jfree.chart.axis.NumberTickUnit(0.1));
+        PaintScaleLegend psl = new PaintScaleLegend(scale, za);
+        psl.setPosition(RectangleEdge.RIGHT);
+        psl.setAxisLocation(AxisLocation.TOP_OR_RIGHT);
+        psl.setStripWidth(16);
+        psl.setStripOutlineVisible(true);
+        psl.setStripOutlinePaint(INK);
+        psl.setSubdivisionCount(YieldRamp.STEPS);
+        psl.setMargin(new RectangleInsets(10, 8, 10, 8));
+        psl.setBackgroundPaint(Color.WHITE);
+        chart.addSubtitle(psl);
+        LegendTitle lt = new LegendTitle(plot);
+        lt.setPosition(RectangleEdge.BOTTOM);
+        lt.setFrame(new BlockBorder(INK));
+        lt.setBackgroundPaint(Color.WHITE);
+        lt.setItemFont(SUBTITLE_FONT);
+        lt.setMargin(new RectangleInsets(6, 6, 6, 6));
+        chart.addSubtitle(lt);
+        return chart;
+    }
+
+    static final Stroke CLASS_LEGEND = new BasicStroke(1.6f);
+    static final Stroke WINDOW_LEGEND = MapLayerRenderer.WINDOW_EDGE;
+    static final Stroke PLAIN_LEGEND = MapLayerRenderer.PLAIN_WINDOW_EDGE;
+
+    /** Legend swatch for hatched cells. */
+    static final class HatchSwatch extends java.awt.TexturePaint {
+        HatchSwatch() {
+            super(hatchImage(), new Rectangle2D.Double(0, 0, 6, 6));
+        }
+
+        static java.awt.image.BufferedImage hatchImage() {
+            java.awt.image.BufferedImage im = new java.awt.image.BufferedImage(6, 6, java.awt.image.BufferedImage.TYPE_INT_RGB);
+            java.awt.Graphics2D g = im.createGraphics();
+            g.setColor(MapLayerRenderer.INFEASIBLE_FILL);
+            g.fillRect(0, 0, 6, 6);
+            g.setColor(MapLayerRenderer.HATCH_COLOR);
+            g.drawLine(0, 5, 5, 0);
+            g.dispose();
+            return im;
+        }
+    }
+
+    /**
+     * Where a proposal's number goes: up and right of odd ranks, down and left of even ones (so
+     * neighbours' labels do not overlap), turned inwards near the edges of the box.
+     */
+    static TextAnchor labelAnchor(int number, double ux, double uy) {
+        boolean up = number % 2 == 1;
+        boolean right = number % 2 == 1;
+        if (up && uy > 0.9) {
+            up = false;
+        } else if (!up && uy < 0.1) {
+            up = true;
+        }
+        if (right && ux > 0.9) {
+            right = false;
+        } else if (!right && ux < 0.1) {
+            right = true;
+        }
+        if (up) {
+            return right ? TextAnchor.BOTTOM_LEFT : TextAnchor.BOTTOM_RIGHT;
+        }
+        return right ? TextAnchor.TOP_LEFT : TextAnchor.TOP_RIGHT;
+    }
+
+    static int order(String key, WindowMapResult map) {
+        if (key.equals("failed run")) {
+            return Integer.MAX_VALUE;
+        }
+        for (int k = 0; k < map.classes().size(); k++) {
+            if (key.startsWith(map.classes().get(k) + ",")) {
+                return 2 * k + (key.endsWith("met spec") && !key.endsWith("missed spec") ? 0 : 1);
+            }
+        }
+        return Integer.MAX_VALUE - 1;
+    }
+
+    /** True when the run met every target of the campaign (a target not measured counts as missed). */
+    static boolean metSpec(Campaign c, Run r) {
+        if (!r.ok() || c.targets().isEmpty()) {
+            return false;
+        }
+        for (Target t : c.targets()) {
+            if (t.isObjective() && !t.hasWindow()) {
+                continue;
+            }
+            Boolean m = CheckSummary.meets(t, r);
+            if (m == null || !m) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    static String held(WindowMapResult map, Campaign c) {
+        StringBuilder sb = new StringBuilder("Held: ");
+        boolean first = true;
+        for (Map.Entry<String, Object> e : map.at().entrySet()) {
+            if (e.getKey().equals(map.x().name()) || e.getKey().equals(map.y().name())) {
+                continue;
+            }
+            sb.append(first ? "" : ", ").append(e.getKey()).append(' ');
+            if (e.getValue() instanceof Double) {
+                sb.append(Labels.num((Double) e.getValue()));
+                c.parameter(e.getKey()).filter(p -> !p.isCategorical())
+                        .ifPresent(p -> sb.append(' ').append(Labels.unit(p.unit().symbol())));
+            } else {
+                sb.append(e.getValue());
+            }
+            first = false;
+        }
+        if (first) {
+            sb.append("nothing (the campaign has only these two settings)");
+        }
+        return sb.append('.').toString();
+    }
+
+    static String windowLine(WindowMapResult map) {
+        String s = String.format(Locale.ROOT, "Window (yield \u2265 %s): %s of the map", Labels.num(WindowMap.WINDOW_THRESHOLD),
+                percent(map.windowFraction()));
+        if (map.robust()) {
+            s += String.format(Locale.ROOT, " with a %s K thermocouple error (sd) on %s; %s at the set point.",
+                    Labels.num(map.temperatureUncertaintyK()), String.join(" and ", map.temperatureSettings()),
+                    percent(map.plainWindowFraction()));
+        } else {
+            s += ".";
+        }
+        return s;
+    }
+
+    static String percent(double f) {
+        return String.format(Locale.ROOT, "%.0f %%", 100 * f);
+    }
+
+    /** The field with its edge rows and columns repeated once on every side. */
+    static double[][] padded(double[][] f) {
+        int ny = f.length;
+        int nx = f[0].length;
+        double[][] out = new double[ny + 2][nx + 2];
+        for (int j = 0; j < ny + 2; j++) {
+            int sj = Math.max(0, Math.min(ny - 1, j - 1));
+            for (int i = 0; i < nx + 2; i++) {
+                out[j][i] = f[sj][Math.max(0, Math.min(nx - 1, i - 1))];
+            }
+        }
+        return out;
+    }
+
+    /** Cell edges where the most likely class changes, as segments in data units. */
+    static List<double[]> classEdges(WindowMapResult map) {
+        List<double[]> out = new ArrayList<>();
+        if (map.classOutcome() == null) {
+            return out;
+        }
+        double[] xe = map.xEdges();
+        double[] ye = map.yEdges();
+        for (int j = 0; j < map.ny(); j++) {
+            for (int i = 0; i < map.nx(); i++) {
+                String c = map.likelyClassAt(i, j);
+                if (i + 1 < map.nx() && !c.equals(map.likelyClassAt(i + 1, j))) {
+                    out.add(new double[] {xe[i + 1], ye[j], xe[i + 1], ye[j + 1]});
+                }
+                if (j + 1 < map.ny() && !c.equals(map.likelyClassAt(i, j + 1))) {
+                    out.add(new double[] {xe[i], ye[j + 1], xe[i + 1], ye[j + 1]});
+                }
+            }
+        }
+        return out;
+    }
+
+    static List<double[]> toData(List<double[]> unitSegments, ParameterSpec xp, ParameterSpec yp) {
+        List<double[]> out = new ArrayList<>(unitSegments.size());
+        for (double[] s : unitSegments) {
+            out.add(new double[] {xp.fromUnit(s[0]), yp.fromUnit(s[1]), xp.fromUnit(s[2]), yp.fromUnit(s[3])});
+        }
+        return out;
+    }
+
+    /**
+     * @param p a numeric setting
+     * @return its axis over the box: logarithmic for {@code scale: log}, labelled with name and unit
+     */
+    static ValueAxis axis(ParameterSpec p) {
+        ValueAxis a;
+        if (p.scale() == Scale.LOG) {
+            a = new DecadeAxis(Labels.axis(p) + ", log scale");
+        } else {
+            NumberAxis n = new NumberAxis(Labels.axis(p));
+            n.setAutoRangeIncludesZero(false);
+            a = n;
+        }
+        a.setRange(p.min(), p.max());
+        a.setAutoRange(false);
+        a.setLowerMargin(0);
+        a.setUpperMargin(0);
+        return a;
+    }
+}

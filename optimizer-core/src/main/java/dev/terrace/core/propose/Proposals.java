@@ -18,13 +18,18 @@ public final class Proposals {
     /**
      * The predictive distribution of one numeric outcome for one recipe, in the outcome's unit.
      *
-     * @param mean   central value: the mean, or for {@code scale: log} outcomes the median 10^mu
-     * @param sd     standard deviation of a new measurement (for log outcomes the delta-method value
-     *               mean·ln(10)·sd_log10)
-     * @param lo90   lower end of the 90 % interval of a new measurement
-     * @param hi90   upper end of the 90 % interval
-     * @param inWindow probability that a new measurement lies in the target window, or -1 when the
-     *                 outcome has no window target
+     * <p>Values are those of the prediction censored at the outcome's {@link PhysicalRange}: never
+     * outside it.
+     *
+     * @param mean   central value: the median of the prediction (the mean for linear outcomes, 10^mu
+     *               for {@code scale: log} outcomes), clipped to the physical range
+     * @param sd     standard deviation of a new measurement before censoring (for log outcomes the
+     *               delta-method value median·ln(10)·sd_log10)
+     * @param lo90   lower end of the 90 % interval of a new measurement, at or above the range's minimum
+     * @param hi90   upper end of the 90 % interval, at or below the range's maximum
+     * @param inWindow probability that a new measurement lies in the target window (a window reaching
+     *                 a physical bound includes the mass beyond it), or -1 when the outcome has no
+     *                 window target
      */
     public record NumericPrediction(double mean, double sd, double lo90, double hi90, double inWindow) {
         /** Checks that every value is finite. */

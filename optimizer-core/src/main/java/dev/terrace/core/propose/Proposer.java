@@ -282,8 +282,9 @@ public final class Proposer {
                 double sl = e.sdLatent().get(o.name())[i];
                 double ns = e.noiseSd().get(o.name());
                 double sn = Math.sqrt(sl * sl + ns * ns);
-                double lo = scaled(o, t.min());
-                double hi = scaled(o, t.max());
+                PhysicalRange range = PhysicalRange.of(o);
+                double lo = range.windowLow(o.scale(), scaled(o, t.min()));
+                double hi = range.windowHigh(o.scale(), scaled(o, t.max()));
                 double lw = Acquisitions.logWindowProbability(mu, sn, lo, hi);
                 f.put(o.name() + " in window", Math.exp(lw));
                 y += lw;
@@ -386,17 +387,22 @@ public final class Proposer {
             double ns = e.noiseSd().get(o.name());
             double sn = Math.sqrt(sl * sl + ns * ns);
             Target t = c.target(o.name()).orElse(null);
+            PhysicalRange range = PhysicalRange.of(o);
             double inWin = t != null && t.hasWindow()
-                    ? clamp01(Acquisitions.windowProbability(mu, sn, scaled(o, t.min()), scaled(o, t.max()))) : -1;
+                    ? clamp01(Acquisitions.windowProbability(mu, sn, range.windowLow(o.scale(), scaled(o, t.min())),
+                    range.windowHigh(o.scale(), scaled(o, t.max())))) : -1;
             if (sn > 1e5) {
                 continue; // never measured and no growth model predicts it: nothing to say
             }
+            // the censored view (PhysicalRange): median and 90 % interval clipped to the physical range
             if (o.scale() == Scale.LOG) {
                 double med = Math.pow(10, mu);
-                numeric.put(o.name(), new NumericPrediction(bounded(med), bounded(med * Math.log(10) * sn),
-                        bounded(Math.pow(10, mu - Z90 * sn)), bounded(Math.pow(10, mu + Z90 * sn)), inWin));
+                numeric.put(o.name(), new NumericPrediction(range.clip(bounded(med)), bounded(med * Math.log(10) * sn),
+                        range.clip(bounded(Math.pow(10, mu - Z90 * sn))), range.clip(bounded(Math.pow(10, mu + Z90 * sn))),
+                        inWin));
             } else {
-                numeric.put(o.name(), new NumericPrediction(mu, sn, mu - Z90 * sn, mu + Z90 * sn, inWin));
+                numeric.put(o.name(), new NumericPrediction(range.clip(mu), sn, range.clip(mu - Z90 * sn),
+                        range.clip(mu + Z90 * sn), inWin));
             }
         }
         Map<String, Map<String, Double>> classes = new LinkedHashMap<>();
@@ -496,7 +502,7 @@ public final class Proposer {
         }
         OutcomeSpec o = c.outcome(objective.outcome()).orElseThrow();
         double mu = e.mean().get(o.name())[0];
-        return o.scale() == Scale.LOG ? Math.pow(10, mu) : mu;
+        return PhysicalRange.of(o).clip(o.scale() == Scale.LOG ? Math.pow(10, mu) : mu);
     }
 
     static List<String> safetyFlags(Campaign c, Map<String, Double> numbers, Map<String, String> categories) {

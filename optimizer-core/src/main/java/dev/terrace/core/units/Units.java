@@ -49,6 +49,8 @@ public final class Units {
         add(new Unit("um", Quantity.LENGTH, 1000, 0, false));
         add(new Unit("cm^-2 s^-1", Quantity.PARTICLE_FLUX, 1, 0, false));
         add(new Unit("1", Quantity.DIMENSIONLESS, 1, 0, false));
+        // a share of a whole, 0 to 1 (yields, areal coverages, fill factors); predictions stay in [0, 1]
+        add(new Unit("fraction", Quantity.DIMENSIONLESS, 1, 0, false));
     }
 
     /** A deposited amount given as a thickness in nm (converted with the monolayer height). */

@@ -38,6 +38,41 @@ public final class Main implements Runnable {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
+    /** The environment the commands see (SOURCE_DATE_EPOCH, ...); passed in, never read behind the caller. */
+    private final java.util.Map<String, String> environment;
+
+    private Main(java.util.Map<String, String> environment) {
+        this.environment = java.util.Map.copyOf(environment);
+    }
+
+    /**
+     * The environment of the command line a command runs in: the one given to {@link #execute},
+     * or the process environment when the command runs outside Main.
+     *
+     * @param command any command's spec
+     * @return the environment; never null
+     */
+    static java.util.Map<String, String> environment(CommandLine.Model.CommandSpec command) {
+        Object root = command.root().userObject();
+        return root instanceof Main ? ((Main) root).environment : System.getenv();
+    }
+
+    /**
+     * The clock for dates and times written into files: SOURCE_DATE_EPOCH from the command's
+     * environment when set (see {@link dev.terrace.core.io.SourceDate}), else the system clock.
+     *
+     * @param command any command's spec
+     * @return the clock; never null
+     * @throws UsageException when SOURCE_DATE_EPOCH is set but malformed
+     */
+    static java.time.Clock clock(CommandLine.Model.CommandSpec command) {
+        try {
+            return dev.terrace.core.io.SourceDate.clock(environment(command));
+        } catch (IllegalArgumentException e) {
+            throw new UsageException(e.getMessage());
+        }
+    }
+
     @Override
     public void run() {
         spec.commandLine().usage(spec.commandLine().getOut());
@@ -61,6 +96,20 @@ public final class Main implements Runnable {
      * @return the exit code
      */
     public static int execute(PrintWriter out, PrintWriter err, String... args) {
+        return execute(out, err, System.getenv(), args);
+    }
+
+    /**
+     * Runs a command in-process with a given environment (tests set SOURCE_DATE_EPOCH this way).
+     *
+     * @param out         standard output
+     * @param err         standard error
+     * @param environment the environment variables the commands see
+     * @param args        arguments
+     * @return the exit code
+     */
+    public static int execute(PrintWriter out, PrintWriter err, java.util.Map<String, String> environment,
+                              String... args) {
         quietLibraries();
         String algebraProblem = dev.terrace.core.linalg.Algebra.configurationProblem();
         if (algebraProblem != null) {
@@ -68,7 +117,7 @@ public final class Main implements Runnable {
             err.flush();
             return EXIT_INPUT;
         }
-        CommandLine cl = commandLine();
+        CommandLine cl = commandLine(environment);
         cl.setOut(out);
         cl.setErr(err);
         try {
@@ -87,7 +136,15 @@ public final class Main implements Runnable {
 
     /** @return the configured command line; never null */
     public static CommandLine commandLine() {
-        CommandLine cl = new CommandLine(new Main());
+        return commandLine(System.getenv());
+    }
+
+    /**
+     * @param environment the environment variables the commands see
+     * @return the configured command line; never null
+     */
+    public static CommandLine commandLine(java.util.Map<String, String> environment) {
+        CommandLine cl = new CommandLine(new Main(environment));
         cl.setExecutionExceptionHandler(Main::handle);
         CommandLine.IParameterExceptionHandler refusals = cl.getParameterExceptionHandler();
         cl.setParameterExceptionHandler((ex, args) -> refusals.handleParseException(OptionRanges.reworded(ex), args));

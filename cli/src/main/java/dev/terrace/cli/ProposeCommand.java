@@ -71,18 +71,8 @@ final class ProposeCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         output.check(spec);
-        if (batch < 1 || batch > 100) {
-            throw new CommandLine.ParameterException(spec.commandLine(), "--batch must be 1 to 100, found " + batch);
-        }
-        if (!(explore >= 0) || !(explore <= MAX_EXPLORE)) {
-            throw new CommandLine.ParameterException(spec.commandLine(), "--explore must be a number from 0 to "
-                    + (int) MAX_EXPLORE + " (standard deviations of optimism), found " + explore);
-        }
-        if (withinRuns != null && !(withinRuns >= 0 && withinRuns <= ProposeSettings.MAX_WITHIN_RUNS)) {
-            throw new CommandLine.ParameterException(spec.commandLine(),
-                    "--within-runs must be a number from 0 to 10 (a fraction of each setting's logged span), found "
-                            + withinRuns);
-        }
+        java.time.Clock clock = Main.clock(spec);
+        // --batch, --explore and --within-runs are range-checked by OptionRanges before call()
         PrintWriter err = spec.commandLine().getErr();
         PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
@@ -102,7 +92,7 @@ final class ProposeCommand implements Callable<Integer> {
             bar.step();
         }
         if (!noJournal && !set.proposals().isEmpty()) {
-            dev.terrace.core.journal.Journal.appendBatch(lc, set, java.time.Instant.now());
+            dev.terrace.core.journal.Journal.appendBatch(lc, set, clock.instant());
         }
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
         if (!global.quiet) {

@@ -61,6 +61,7 @@ final class RecordCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        java.time.Clock clock = Main.clock(spec);
         Map<String, String> given = parse(values);
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
         Campaign c = lc.campaign();
@@ -87,7 +88,7 @@ final class RecordCommand implements Callable<Integer> {
             cells.put(RunLogReader.PROPOSAL, proposal);
         }
         cells.putAll(given);
-        Map<String, String> ifColumn = Map.of(RunLogReader.DATE, LocalDate.now().toString());
+        Map<String, String> ifColumn = Map.of(RunLogReader.DATE, LocalDate.now(clock).toString());
         RunLogAppender.Appended a;
         try {
             a = dryRun ? RunLogAppender.plan(c, cells, ifColumn) : RunLogAppender.append(c, cells, ifColumn);

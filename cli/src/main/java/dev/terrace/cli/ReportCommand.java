@@ -105,6 +105,7 @@ final class ReportCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         PrintWriter err = spec.commandLine().getErr();
+        LocalDate date = LocalDate.now(Main.clock(spec));
         String html;
         SafeFiles.Target target;
         try (Progress bar = Progress.startPhases("report", PHASES.size(), global)) {
@@ -117,7 +118,7 @@ final class ReportCommand implements Callable<Integer> {
             for (Diagnostic d : lc.warnings()) {
                 err.println(d);
             }
-            ReportContent content = compute(lc, reg, bar, err);
+            ReportContent content = compute(lc, reg, bar, err, date);
             bar.step().message(PHASES.get(6));
             html = HtmlReport.render(content);
             bar.step();
@@ -131,7 +132,7 @@ final class ReportCommand implements Callable<Integer> {
     }
 
     /** Computes every part of the report; a part that fails is left out with the reason. */
-    private ReportContent compute(LoadedCampaign lc, PluginRegistry reg, Progress bar, PrintWriter err) {
+    private ReportContent compute(LoadedCampaign lc, PluginRegistry reg, Progress bar, PrintWriter err, LocalDate date) {
         Campaign c = lc.campaign();
         Map<String, String> problems = new LinkedHashMap<>();
         bar.step().message(PHASES.get(1));
@@ -158,7 +159,7 @@ final class ReportCommand implements Callable<Integer> {
         }
         bar.step().message(PHASES.get(5));
         ArrheniusPanel arrhenius = part(ReportContent.ARRHENIUS, problems, err, () -> arrhenius(lc, problems));
-        return new ReportContent(lc, generator(), seed, LocalDate.now(), fit, validation, arrhenius, windows,
+        return new ReportContent(lc, generator(), seed, date, fit, validation, arrhenius, windows,
                 proposals, problems);
     }
 

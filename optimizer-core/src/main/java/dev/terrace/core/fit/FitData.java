@@ -53,6 +53,12 @@ abstract class FitData {
     final Map<String, String> sharedReason = new LinkedHashMap<>();
     int maxEvaluations = 3000;
     boolean intervals = true;
+    /**
+     * Gaussian priors on the fitting scale by parameter name ({mean, sd} in u, the log10 scale for
+     * parameters fitted in log): earlier series of the same chamber ({@link SeriesPriors}). Each enters
+     * the likelihood as one more residual {@code (u − mean)/sd} while the parameter is free.
+     */
+    final Map<String, double[]> prior = new LinkedHashMap<>();
 
     FitData(Campaign c, List<Run> runs, GrowthModel model, ModelChain upstream, SplittableRandom rng) {
         this.c = c;
@@ -218,6 +224,39 @@ abstract class FitData {
             }
         });
         return b2.build();
+    }
+
+    /** The prior residuals {@code (u − mean)/sd} of the free parameters that have a prior, in free order. */
+    double[] priorResiduals(List<ModelParameter> free, double[] u) {
+        int n = 0;
+        for (ModelParameter p : free) {
+            if (prior.containsKey(p.name())) {
+                n++;
+            }
+        }
+        double[] r = new double[n];
+        int k = 0;
+        for (int i = 0; i < free.size(); i++) {
+            double[] ps = prior.get(free.get(i).name());
+            if (ps != null) {
+                r[k++] = (u[i] - ps[0]) / ps[1];
+            }
+        }
+        return r;
+    }
+
+    /** Sum of squared prior residuals: the priors' share of −2 ln L (up to constants). */
+    double priorChi2(List<ModelParameter> free, double[] u) {
+        double s = 0;
+        for (double r : priorResiduals(free, u)) {
+            s += r * r;
+        }
+        return s;
+    }
+
+    /** @return how many of these free parameters carry a prior */
+    int priorCount(List<ModelParameter> free) {
+        return (int) free.stream().filter(p -> prior.containsKey(p.name())).count();
     }
 
     double scaled(OutcomeSpec o, double campaignValue) {

@@ -174,7 +174,7 @@ final class FitProblem extends FitUncertainty {
         int d = best.free.size();
         double[][] cov = d == 0 ? new double[0][0] : covariance(best);
         int nNum = (int) obs.stream().filter(o -> !o.isClass()).count();
-        int dof = (hasClass ? obs.size() : nNum) - d;
+        int dof = (hasClass ? obs.size() : nNum) + priorCount(best.free) - d;
         boolean useBootstrap = intervals && d > 0 && (cov == null || dof < MIN_DOF_FOR_COVARIANCE);
         double[][] ci = new double[d][2];
         String method;

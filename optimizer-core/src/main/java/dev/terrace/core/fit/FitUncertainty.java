@@ -74,7 +74,7 @@ abstract class FitUncertainty extends FitOptimizer {
     /** Gauss-Newton information J^T J (numeric-only models), better conditioned than differences. */
     double[][] gaussNewton(CandidateFit cf) {
         int d = cf.u.length;
-        double[] r0 = numericResiduals(predictAll(values(cf.combo, cf.free, cf.u)), cf.sigma);
+        double[] r0 = allResiduals(cf.combo, cf.free, cf.u, cf.sigma);
         double[][] j = new double[r0.length][d];
         for (int k = 0; k < d; k++) {
             ModelParameter p = cf.free.get(k);
@@ -83,8 +83,8 @@ abstract class FitUncertainty extends FitOptimizer {
             double[] b = cf.u.clone();
             a[k] = Math.min(uHi(p), cf.u[k] + h);
             b[k] = Math.max(uLo(p), cf.u[k] - h);
-            double[] ra = numericResiduals(predictAll(values(cf.combo, cf.free, a)), cf.sigma);
-            double[] rb = numericResiduals(predictAll(values(cf.combo, cf.free, b)), cf.sigma);
+            double[] ra = allResiduals(cf.combo, cf.free, a, cf.sigma);
+            double[] rb = allResiduals(cf.combo, cf.free, b, cf.sigma);
             for (int i = 0; i < r0.length; i++) {
                 j[i][k] = (ra[i] - rb[i]) / (a[k] - b[k]);
             }
@@ -116,7 +116,8 @@ abstract class FitUncertainty extends FitOptimizer {
         double[][] cov = ed.getSolver().getInverse().getData();
         // correct for the residual degrees of freedom of the estimated noise (numeric only)
         if (!hasClass) {
-            int n = numericCount();
+            // a prior counts as one more observation of its parameter
+            int n = numericCount() + priorCount(cf.free);
             int dof = n - cf.free.size();
             if (dof > 0) {
                 double f = (double) n / dof;
@@ -151,8 +152,15 @@ abstract class FitUncertainty extends FitOptimizer {
         int savedMax = maxEvaluations;
         maxEvaluations = 800;
         SplittableRandom r = rng.split();
+        Map<String, double[]> priorMeans = new java.util.LinkedHashMap<>(prior);
         try {
             for (int b = 0; b < reps; b++) {
+                // the prior is one more observation: draw its mean afresh, as the data are redrawn,
+                // so the spread of the refits is that of the combined estimate, not the data's share alone
+                for (Map.Entry<String, double[]> pe : priorMeans.entrySet()) {
+                    double[] ps = pe.getValue();
+                    prior.put(pe.getKey(), new double[] {ps[0] + ps[1] * r.nextGaussian(), ps[1]});
+                }
                 List<Obs> synth = new ArrayList<>();
                 for (Obs o : original) {
                     if (o.isClass()) {
@@ -184,6 +192,7 @@ abstract class FitUncertainty extends FitOptimizer {
                 samples[b] = u;
             }
         } finally {
+            prior.putAll(priorMeans);
             obs.clear();
             obs.addAll(original);
             maxEvaluations = savedMax;

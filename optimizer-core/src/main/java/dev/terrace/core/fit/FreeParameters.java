@@ -95,7 +95,8 @@ abstract class FreeParameters extends FitLikelihood {
         for (int i = 0; i < all.size(); i++) {
             u0all[i] = toU(all.get(i), at.getOrDefault(all.get(i).name(), all.get(i).defaultValue()));
         }
-        double[][] jAll = sensitivity(cf.combo, all, u0all);
+        double[][] jAll = withPriorRows(sensitivity(cf.combo, all, u0all), all);
+        nObs = jAll.length;
         double maxNorm = 0;
         double[] norms = new double[all.size()];
         for (int k = 0; k < all.size(); k++) {
@@ -112,6 +113,8 @@ abstract class FreeParameters extends FitLikelihood {
             // a class label or a censored value says less than a measured number
             effective += o.isClass() || o.isCensored() ? CLASS_OBSERVATION_WEIGHT : 1;
         }
+        // an earlier series' estimate counts as one observation of its parameter
+        effective += priorCount(all);
         for (int k = 0; k < all.size(); k++) {
             ModelParameter p = all.get(k);
             if (!(norms[k] > MIN_SENSITIVITY * Math.max(maxNorm, 1e-300)) || norms[k] == 0) {
@@ -137,6 +140,28 @@ abstract class FreeParameters extends FitLikelihood {
             free.add(p);
         }
         cf.free = free;
+    }
+
+    /**
+     * The sensitivity matrix with one row per parameter that has a prior: the derivative of its prior
+     * residual, {@code 1/sd}, scaled to the parameter's range like the other rows.
+     */
+    double[][] withPriorRows(double[][] j, List<ModelParameter> cand) {
+        int extra = priorCount(cand);
+        if (extra == 0) {
+            return j;
+        }
+        double[][] out = java.util.Arrays.copyOf(j, j.length + extra);
+        int row = j.length;
+        for (int k = 0; k < cand.size(); k++) {
+            double[] ps = prior.get(cand.get(k).name());
+            if (ps != null) {
+                out[row] = new double[cand.size()];
+                out[row][k] = (uHi(cand.get(k)) - uLo(cand.get(k))) / 4 / ps[1];
+                row++;
+            }
+        }
+        return out;
     }
 
     /**

@@ -50,7 +50,7 @@ final class CalibrationReader {
     static final List<String> SECTION_KEYS = List.of("points", "fit_offset");
     static final List<String> POINT_KEYS = List.of("event", "reading", "reading_uncertainty", "true", "uncertainty",
             "source");
-    private static final Pattern QUANTITY = Pattern.compile("\\s*([-+]?[0-9]*\\.?[0-9]+(?:[eE][-+]?[0-9]+)?)\\s*(\\S+)\\s*");
+    private static final Pattern QUANTITY = Pattern.compile("\\s*([-+]?[0-9]*\\.?[0-9]+(?:[eE][-+]?[0-9]+)?)\\s*([A-Za-z]\\S*)\\s*");
     private static final Pattern EVENT = Pattern.compile("[A-Za-z][A-Za-z0-9_\\-]*");
 
     private final Path file;

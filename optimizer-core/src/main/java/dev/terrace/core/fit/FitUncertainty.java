@@ -157,9 +157,19 @@ abstract class FitUncertainty extends FitOptimizer {
             for (int b = 0; b < reps; b++) {
                 // the prior is one more observation: draw its mean afresh, as the data are redrawn,
                 // so the spread of the refits is that of the combined estimate, not the data's share alone
-                for (Map.Entry<String, double[]> pe : priorMeans.entrySet()) {
-                    double[] ps = pe.getValue();
-                    prior.put(pe.getKey(), new double[] {ps[0] + ps[1] * r.nextGaussian(), ps[1]});
+                List<String> names = new ArrayList<>(priorMeans.keySet());
+                double[][] l = priorCholesky(names);
+                double[] z = new double[names.size()];
+                for (int i = 0; i < z.length; i++) {
+                    z[i] = r.nextGaussian();
+                }
+                for (int i = 0; i < z.length; i++) {
+                    double[] ps = priorMeans.get(names.get(i));
+                    double shift = 0;
+                    for (int j = 0; j <= i; j++) {
+                        shift += l[i][j] * z[j];
+                    }
+                    prior.put(names.get(i), new double[] {ps[0] + shift, ps[1]});
                 }
                 List<Obs> synth = new ArrayList<>();
                 for (Obs o : original) {

@@ -224,6 +224,7 @@ public final class ModelFitter {
                             && m.get().parameters().stream().anyMatch(p -> p.name().equals(pp.parameter())
                             && !p.isDiscrete() && p.logScale() == pp.logScale())) {
                         pr.prior.put(pp.parameter(), new double[] {pp.meanU(), pp.sdU()});
+                        pr.priorCorrelation.put(pp.parameter(), pp.correlations());
                     }
                 }
                 f = pr.solve();

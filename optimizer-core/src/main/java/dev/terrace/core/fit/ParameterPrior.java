@@ -13,10 +13,12 @@ import java.util.Objects;
  * @param meanU     the prior mean on the fitting scale; finite
  * @param sdU       the prior standard deviation on the fitting scale; finite and positive
  * @param source    where the prior comes from (the earlier campaign and its runs); never null
+ * @param correlations correlations with other prior parameters of the same model, from the earlier fit's
+ *                  covariance (name to ρ); never null, possibly empty (uncorrelated)
  * @since 0.3
  */
 public record ParameterPrior(String model, String parameter, String unit, boolean logScale, double meanU, double sdU,
-                             String source) {
+                             String source, java.util.Map<String, Double> correlations) {
 
     /** z for a central 95 % interval of a normal distribution, 1.959964 (standard normal quantile). */
     public static final double Z95 = 1.959964;
@@ -27,6 +29,7 @@ public record ParameterPrior(String model, String parameter, String unit, boolea
         Objects.requireNonNull(parameter, "parameter");
         Objects.requireNonNull(unit, "unit");
         Objects.requireNonNull(source, "source");
+        correlations = FitResults.ordered(correlations);
         if (!Double.isFinite(meanU) || !(sdU > 0) || !Double.isFinite(sdU)) {
             throw new IllegalArgumentException("prior of " + parameter + " needs a finite mean and a positive sd");
         }
@@ -45,18 +48,21 @@ public record ParameterPrior(String model, String parameter, String unit, boolea
      * @param lo        lower end of its 95 % interval
      * @param hi        upper end of its 95 % interval
      * @param source    where it comes from
+     * @param correlations correlations with the model's other fitted parameters (name to ρ)
      * @return the prior; never null
      * @throws IllegalArgumentException when the interval is empty or not finite
      */
     public static ParameterPrior fromInterval(String model, String parameter, String unit, boolean logScale,
-                                              double value, double lo, double hi, String source) {
+                                              double value, double lo, double hi, String source,
+                                              java.util.Map<String, Double> correlations) {
         double u = toU(logScale, value);
         double sd = (toU(logScale, hi) - toU(logScale, lo)) / (2 * Z95);
-        return new ParameterPrior(model, parameter, unit, logScale, u, sd, source);
+        return new ParameterPrior(model, parameter, unit, logScale, u, sd, source, correlations);
     }
 
     /**
-     * Inverse-variance combination of two priors on the same parameter (two earlier series).
+     * Inverse-variance combination of two priors on the same parameter (two earlier series). The
+     * correlations of the two series are not combined: the result is uncorrelated with the others.
      *
      * @param other another prior of the same model and parameter
      * @return the combined prior; never null
@@ -68,7 +74,7 @@ public record ParameterPrior(String model, String parameter, String unit, boolea
         double w1 = 1 / (sdU * sdU);
         double w2 = 1 / (other.sdU * other.sdU);
         return new ParameterPrior(model, parameter, unit, logScale, (w1 * meanU + w2 * other.meanU) / (w1 + w2),
-                1 / Math.sqrt(w1 + w2), source + "; " + other.source);
+                1 / Math.sqrt(w1 + w2), source + "; " + other.source, java.util.Map.of());
     }
 
     /** @return the prior mean in the parameter's unit */

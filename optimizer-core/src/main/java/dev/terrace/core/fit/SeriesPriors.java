@@ -114,9 +114,17 @@ public final class SeriesPriors {
                             || p.logScale() && !(est.lo() > 0)) {
                         continue;
                     }
+                    Map<String, Double> rho = new LinkedHashMap<>();
+                    int a = mf.correlationNames().indexOf(p.name());
+                    for (int b = 0; a >= 0 && b < mf.correlationNames().size(); b++) {
+                        double v = mf.correlations()[a][b];
+                        if (b != a && Double.isFinite(v) && v != 0) {
+                            rho.put(mf.correlationNames().get(b), v);
+                        }
+                    }
                     ParameterPrior pp = ParameterPrior.fromInterval(mf.id(), p.name(), p.unit(), p.logScale(),
                             est.value(), est.lo(), est.hi(), "series " + e.id() + " (" + ps.written() + ", "
-                                    + mf.runsUsed() + " runs)");
+                                    + mf.runsUsed() + " runs)", rho);
                     String key = mf.id() + "/" + p.name();
                     combined.merge(key, pp, ParameterPrior::combine);
                 }

@@ -12,7 +12,7 @@ import dev.terrace.core.fit.FitResults.RunUse;
 import dev.terrace.core.fit.FitResults.FitReport;
 import dev.terrace.core.fit.FitResults.ModelFit;
 import dev.terrace.core.fit.FitResults.OutcomeFit;
-import dev.terrace.core.fit.ModelFitter;
+import dev.terrace.core.fit.CampaignFit;
 import dev.terrace.core.plugins.PluginRegistry;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -92,15 +92,22 @@ final class FitCommand implements Callable<Integer> {
             plotTarget.check();
         }
         FitReport report;
+        CampaignFit whole;
         try (Progress bar = Progress.startPhases("fit", 1, global)) {
             bar.message("fitting " + String.join(", ", lc.campaign().models()));
-            report = ModelFitter.fit(lc, reg, seed);
+            whole = CampaignFit.run(lc, reg, seed);
+            report = whole.report();
             bar.step();
         }
         if (format.equals("json")) {
-            out.println(json(report));
+            ObjectMapper om = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+            ObjectNode root = (ObjectNode) om.readTree(json(report));
+            FitExtras.json(whole, root);
+            out.println(om.writeValueAsString(root));
         } else {
+            FitExtras.printOffset(whole, out);
             printTable(report, out, showResiduals);
+            FitExtras.printPriors(whole, out);
         }
         out.flush();
         if (plot != null) {

@@ -46,15 +46,17 @@ final class FitExtras {
         }
         out.println();
         out.println("Priors from earlier series (95 % intervals; 'these runs' is the fit without any prior):");
-        out.println("  " + Format.pad("parameter", 30) + Format.pad("prior", 24) + Format.pad("these runs", 24)
-                + "combined");
         for (PriorCheck c : f.checks()) {
             ParameterPrior p = c.prior();
+            String unit = p.unit().isEmpty() ? "" : " " + p.unit();
             String data = Double.isFinite(c.dataValue()) ? range(c.dataValue(), c.dataLo(), c.dataHi())
-                    : "cannot fit alone";
-            String combined = Double.isFinite(c.lo()) ? range(c.value(), c.lo(), c.hi()) : Format.num(c.value()) + " held";
-            out.println("  " + Format.pad(c.model() + " " + p.parameter(), 30) + Format.pad(range(p.value(), p.lo(), p.hi()), 24)
-                    + Format.pad(data, 24) + combined + (p.unit().isEmpty() ? "" : " " + p.unit()));
+                    : "cannot fit it alone";
+            String combined = Double.isFinite(c.lo()) ? range(c.value(), c.lo(), c.hi())
+                    : Format.num(c.value()) + " (held)";
+            out.println("  " + c.model() + " " + p.parameter() + (unit.isEmpty() ? "" : " (" + p.unit() + ")")
+                    + (c.conflict() ? "   CONTRADICTED" : ""));
+            out.println("    prior " + range(p.value(), p.lo(), p.hi()) + " | these runs " + data
+                    + " | combined " + combined);
             if (c.conflict()) {
                 out.println("    ! " + conflictText(c));
             }

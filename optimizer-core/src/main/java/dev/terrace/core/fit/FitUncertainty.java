@@ -104,6 +104,20 @@ abstract class FitUncertainty extends FitOptimizer {
     double[][] covariance(CandidateFit cf) {
         // Gauss-Newton needs plain residuals; class and censored terms take the observed information
         double[][] info = hasClass || hasCensored ? hessian(cf) : gaussNewton(cf);
+        // the priors' share of the information (their sd is known, not estimated from the residuals)
+        double[][] priorInfo = priorInformation(cf.free);
+        int k = priorCount(cf.free);
+        if (!hasClass && k > 0) {
+            // inflate the data's share alone for the estimated noise, then add the priors' share
+            int n = numericCount();
+            int dofData = n - cf.free.size() + k;
+            double f = dofData > 0 ? (double) n / dofData : 1;
+            for (int a = 0; a < info.length; a++) {
+                for (int b = 0; b < info.length; b++) {
+                    info[a][b] = (info[a][b] - priorInfo[a][b]) / f + priorInfo[a][b];
+                }
+            }
+        }
         RealMatrix m = new Array2DRowRealMatrix(info);
         EigenDecomposition ed = new EigenDecomposition(m);
         double[] ev = ed.getRealEigenvalues();
@@ -115,9 +129,8 @@ abstract class FitUncertainty extends FitOptimizer {
         }
         double[][] cov = ed.getSolver().getInverse().getData();
         // correct for the residual degrees of freedom of the estimated noise (numeric only)
-        if (!hasClass) {
-            // a prior counts as one more observation of its parameter
-            int n = numericCount() + priorCount(cf.free);
+        if (!hasClass && k == 0) {
+            int n = numericCount();
             int dof = n - cf.free.size();
             if (dof > 0) {
                 double f = (double) n / dof;
@@ -129,6 +142,36 @@ abstract class FitUncertainty extends FitOptimizer {
             }
         }
         return cov;
+    }
+
+    /**
+     * The prior information matrix in free-parameter order: the inverse prior covariance of the free
+     * parameters that have a prior ({@code L⁻ᵀL⁻¹}), zero elsewhere.
+     */
+    double[][] priorInformation(List<ModelParameter> free) {
+        int d = free.size();
+        double[][] out = new double[d][d];
+        List<Integer> idx = new ArrayList<>();
+        List<String> names = new ArrayList<>();
+        for (int i = 0; i < d; i++) {
+            if (prior.containsKey(free.get(i).name())) {
+                idx.add(i);
+                names.add(free.get(i).name());
+            }
+        }
+        if (names.isEmpty()) {
+            return out;
+        }
+        double[][] l = priorCholesky(names);
+        RealMatrix lm = new Array2DRowRealMatrix(l);
+        RealMatrix cov = lm.multiply(lm.transpose());
+        double[][] inv = new org.apache.commons.math3.linear.LUDecomposition(cov).getSolver().getInverse().getData();
+        for (int a = 0; a < idx.size(); a++) {
+            for (int b = 0; b < idx.size(); b++) {
+                out[idx.get(a)][idx.get(b)] = inv[a][b];
+            }
+        }
+        return out;
     }
 
     double[][] bootstrap(CandidateFit cf) {

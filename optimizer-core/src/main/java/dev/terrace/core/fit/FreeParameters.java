@@ -113,16 +113,17 @@ abstract class FreeParameters extends FitLikelihood {
             // a class label or a censored value says less than a measured number
             effective += o.isClass() || o.isCensored() ? CLASS_OBSERVATION_WEIGHT : 1;
         }
-        // an earlier series' estimate counts as one observation of its parameter
-        effective += priorCount(all);
         for (int k = 0; k < all.size(); k++) {
             ModelParameter p = all.get(k);
             if (!(norms[k] > MIN_SENSITIVITY * Math.max(maxNorm, 1e-300)) || norms[k] == 0) {
                 cf.heldReason.put(p.name(), "these runs do not depend on it");
                 continue;
             }
-            if (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
-                    || effective < OBSERVATIONS_PER_PARAMETER * (free.size() + 1)) {
+            // a parameter with a prior from an earlier series is determined by it whatever the runs:
+            // the count of runs per parameter applies to the others only
+            long freeWithoutPrior = free.stream().filter(f -> !prior.containsKey(f.name())).count();
+            if (!prior.containsKey(p.name()) && (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
+                    || effective < OBSERVATIONS_PER_PARAMETER * (freeWithoutPrior + 1))) {
                 cf.heldReason.put(p.name(), "too few runs to fit it as well (" + used.size() + " runs)");
                 continue;
             }

@@ -134,6 +134,7 @@ class CampaignFitTest {
         PluginRegistry reg = registry(true);
         int covered = 0;
         int seeds = 40;
+        double widthOverPrior = 0;
         for (int seed = 0; seed < seeds; seed++) {
             Random r = new Random(1000 + seed);
             double oxideRead = 580 + 20 * r.nextGaussian() - trueOffset + 2 * r.nextGaussian();
@@ -149,11 +150,15 @@ class CampaignFitTest {
             OffsetResult o = fit.offset();
             assertTrue(o.fitted());
             assertTrue(o.lo() <= o.value() && o.value() <= o.hi(), o.toString());
+            widthOverPrior += (o.hi() - o.lo()) / (2 * ParameterPrior.Z95 * o.calibration().uncertaintyK()) / seeds;
             if (o.lo() <= trueOffset && trueOffset <= o.hi()) {
                 covered++;
             }
         }
         assertTrue(covered >= 34, "true offset inside the 95 % interval in " + covered + " of " + seeds + " seeds");
+        // the runs carry information of their own (the temperature dependence is known): on average the
+        // fitted interval must be narrower than the calibration points' alone
+        assertTrue(widthOverPrior < 1, "mean interval width / calibration-only width " + widthOverPrior);
     }
 
     @Test

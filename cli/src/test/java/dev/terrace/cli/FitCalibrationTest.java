@@ -111,4 +111,31 @@ class FitCalibrationTest {
             assertTrue(!p.get("conflict").asBoolean(), "same chamber, same truth: no conflict " + p);
         }
     }
+
+    @Test
+    void aContradictedPriorIsFlaggedInTextAndJson() throws Exception {
+        // a prior of 0.70 +/- 0.02 eV against these runs' own 0.90 (0.86 to 0.94) eV: z = 0.20 / sqrt(0.02^2 +
+        // 0.0204^2) = 7.0 (by hand), beyond the 3-sd rule
+        var prior = new dev.terrace.core.fit.ParameterPrior("island-nucleation", "diffusion_barrier", "eV", false,
+                0.70, 0.02, "series spring (invented)", Map.of());
+        var check = new dev.terrace.core.fit.PriorCheck("island-nucleation", prior, 0.90, 0.86, 0.94, 0.80, 0.77, 0.83,
+                (0.90 - 0.70) / Math.sqrt(0.02 * 0.02 + Math.pow(0.04 / 1.959964, 2)));
+        assertTrue(check.conflict());
+        var fit = new dev.terrace.core.fit.CampaignFit(
+                new dev.terrace.core.fit.FitResults.FitReport("x", 0, 0, java.util.List.of(), 1),
+                dev.terrace.core.fit.OffsetResult.fromPoints(dev.terrace.core.campaign.TemperatureOffset.NONE),
+                java.util.List.of(prior), java.util.List.of(check), java.util.List.of());
+        java.io.StringWriter sw = new java.io.StringWriter();
+        FitExtras.printPriors(fit, new java.io.PrintWriter(sw, true));
+        assertTrue(sw.toString().contains("island-nucleation diffusion_barrier (eV)   CONTRADICTED"), sw.toString());
+        assertTrue(sw.toString().contains("these runs contradict the prior (z = 7.0"), sw.toString());
+        ObjectMapper om = new ObjectMapper();
+        var root = om.createObjectNode();
+        FitExtras.json(fit, root);
+        JsonNode p = root.get("priors").get(0);
+        assertTrue(p.get("conflict").asBoolean());
+        assertEquals(7.0, p.get("z").asDouble(), 0.05);
+        assertTrue(p.get("warning").asText().contains("contradict"), p.toString());
+        assertTrue(root.get("temperature_offset").get("ci95_k").isNull(), "no points: no interval");
+    }
 }

@@ -111,7 +111,7 @@ final class FitCommand implements Callable<Integer> {
         }
         out.flush();
         if (plot != null) {
-            arrheniusPlot(lc, err);
+            arrheniusPlot(lc, err, whole.offset().value());
         }
         if (!report.fittedAnything()) {
             StringBuilder sb = new StringBuilder("nothing could be fitted:");
@@ -127,7 +127,7 @@ final class FitCommand implements Callable<Integer> {
         return 0;
     }
 
-    private void arrheniusPlot(LoadedCampaign lc, PrintWriter err) throws Exception {
+    private void arrheniusPlot(LoadedCampaign lc, PrintWriter err, double offsetK) throws Exception {
         var c = lc.campaign();
         var density = ReportCommand.densityOutcome(c);
         var temp = ReportCommand.temperatureSetting(c);
@@ -140,7 +140,8 @@ final class FitCommand implements Callable<Integer> {
             throw new JobFailedException("no Arrhenius plot: fewer than two ok runs at different temperatures measured "
                     + density.name());
         }
-        double[] t = pts.stream().mapToDouble(p -> p[0]).toArray();
+        // readings to true temperatures with the thermocouple offset the fit applied
+        double[] t = pts.stream().mapToDouble(p -> p[0] + offsetK).toArray();
         double[] n = pts.stream().mapToDouble(p -> p[1]).toArray();
         dev.terrace.core.fit.Arrhenius a = dev.terrace.core.fit.Arrhenius.fit(t, n);
         var chart = dev.terrace.cli.plot.Plots.arrhenius(t, n, a.energyEv(), a.lo(), a.hi(),

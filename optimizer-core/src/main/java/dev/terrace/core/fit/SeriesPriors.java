@@ -24,7 +24,7 @@ import java.util.Optional;
 /**
  * Turns the earlier campaigns a campaign names under {@code priors:} into Gaussian priors: each
  * earlier campaign is read with its own run log and fitted with its own models (and, in turn, its own
- * priors), once per call, and every parameter it fitted with a 95 % interval becomes a prior on the
+ * priors and, with {@code fit_offset: true}, its own fitted thermocouple offset), once per call, and every parameter it fitted with a 95 % interval becomes a prior on the
  * fitting scale ({@link ParameterPrior#fromInterval}). Two earlier series that fitted the same model
  * and parameter are combined by inverse variance. Held parameters (defaults) give no prior: a
  * published default is not knowledge of this chamber.
@@ -101,7 +101,12 @@ public final class SeriesPriors {
                         + ", this one " + c.material().deposit() + " on " + c.material().substrate()
                         + ": its parameters may not carry over");
             }
-            FitReport r = ModelFitter.fit(earlier, registry, seed, true, its);
+            // an earlier series that fits its own thermocouple offset is fitted at that offset, as its own
+            // terrace fit would
+            LoadedCampaign at = e.temperatureCalibration().fitOffset()
+                    ? CampaignFit.withOffset(earlier, CampaignFit.profile(earlier, registry, seed, its).value())
+                    : earlier;
+            FitReport r = ModelFitter.fit(at, registry, seed, true, its);
             int before = combined.size();
             for (ModelFit mf : r.models()) {
                 Optional<GrowthModel> gm = registry.model(mf.id());

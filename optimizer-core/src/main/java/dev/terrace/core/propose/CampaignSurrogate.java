@@ -209,7 +209,14 @@ public final class CampaignSurrogate {
             notes.addAll(lc.runLog().runs().size() > PHYSICS_FIT_RUNS
                     ? List.of("growth models fitted on " + PHYSICS_FIT_RUNS + " of the " + lc.runLog().runs().size()
                     + " runs (a fixed random subset)") : List.of());
-            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false);
+            // earlier series of the campaign's priors enter the proposals' fit as they enter 'terrace fit'
+            List<dev.terrace.core.fit.ParameterPrior> priors = List.of();
+            try {
+                priors = dev.terrace.core.fit.SeriesPriors.load(c, registry, seed).priors();
+            } catch (dev.terrace.core.InputException | java.io.IOException e) {
+                notes.add("the earlier series named under priors: were not used: " + e.getMessage());
+            }
+            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false, priors);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
                 if (!f.message().isEmpty()) {

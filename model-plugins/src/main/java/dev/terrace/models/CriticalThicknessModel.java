@@ -24,7 +24,7 @@ import java.util.Set;
  *
  * <p><b>Equations.</b>
  * <pre>
- *   x = (θ − θc) / w                               θ = Role.COVERAGE, θc = critical_thickness, w = onset_width
+ *   x = (θ − θc) / w                               θ = Role.COVERAGE, θc = critical_thickness, w = ONSET_WIDTH_ML
  *   Δ = w · ln(1 + e^x)                            excess coverage past the onset, ML (smoothed)
  *   N = N_nuc(T, F) · (Δ / 1 ML)^p                 p = onset_exponent
  *   P(dots) = 1/(1 + e^−x),   P(wetting-layer) = 1 − P(dots)
@@ -70,9 +70,6 @@ public final class CriticalThicknessModel implements GrowthModel {
     /** Parameter name of the exponent of the rise past the onset. */
     public static final String ONSET_EXPONENT = "onset_exponent";
 
-    /** Parameter name of the width of the onset. */
-    public static final String ONSET_WIDTH = "onset_width";
-
     /**
      * Default critical thickness of InAs on GaAs(001), 1.59 ML: the threshold of the large-dot family,
      * Patella, Arciprete, Placidi et al., arXiv cond-mat/0510353 (2005) (small dots from 1.45 ML);
@@ -93,11 +90,12 @@ public final class CriticalThicknessModel implements GrowthModel {
     public static final double DEFAULT_ONSET_EXPONENT = 1.76;
 
     /**
-     * Default width of the onset, 0.05 ML: Patella et al. (arXiv cond-mat/0510353) resolve thresholds 0.14 ML
-     * apart, so the onset is sharp on that scale; 0.05 ML keeps P(dots) between 0.12 and 0.88 within ±0.1 ML of
-     * θc (Terrace choice).
+     * Width of the onset, 0.05 ML: Patella et al. (arXiv cond-mat/0510353) resolve thresholds 0.14 ML apart, so
+     * the onset is sharp on that scale; 0.05 ML keeps P(dots) between 0.12 and 0.88 within ±0.1 ML of θc
+     * (Terrace choice). It is a fixed smoothing, not a fitted parameter: densities cannot tell it apart from
+     * the critical thickness and the exponent.
      */
-    public static final double DEFAULT_ONSET_WIDTH_ML = 0.05;
+    public static final double ONSET_WIDTH_ML = 0.05;
 
     /**
      * Default In adatom diffusion barrier, 1.04 eV: the value used for In adatoms in rate equations of the
@@ -163,9 +161,6 @@ public final class CriticalThicknessModel implements GrowthModel {
                         q.logScale(), q.source(), q.description(), ""));
             }
         }
-        p.add(ModelParameter.continuous(ONSET_WIDTH, "ML", DEFAULT_ONSET_WIDTH_ML, 0.01, 0.3, true,
-                "Terrace choice: Patella et al., arXiv cond-mat/0510353, resolve onsets 0.14 ML apart",
-                "coverage range over which the islands appear across a sample (smoothing of the onset)"));
         PARAMETERS = List.copyOf(p);
     }
 
@@ -262,7 +257,7 @@ public final class CriticalThicknessModel implements GrowthModel {
 
         NucleationLaw law = NucleationLaw.from(parameters, NucleationLaw.ALPHA_3D);
         double thetaC = parameters.get(CRITICAL_THICKNESS);
-        double width = parameters.get(ONSET_WIDTH);
+        double width = ONSET_WIDTH_ML;
         double exponent = parameters.get(ONSET_EXPONENT);
         List<String> reasons = new ArrayList<>();
         List<String> notes = new ArrayList<>();

@@ -78,11 +78,11 @@ class SurfactantRecoveryTest {
 
     @Test
     void surfactantShiftIntervalCoversTheTruthInAtLeast85PercentOf40Seeds() throws Exception {
-        int reps = 40; // 40 series of 16 runs, seeds 5000 + s, fitter seed s: test design choice
+        int reps = 40; // 40 series of 20 runs, seeds 5000 + s, fitter seed s: test design choice
         int covered = 0;
         int signRight = 0;
         for (int s = 0; s < reps; s++) {
-            ModelFit f = ModelFitter.fit(synthetic(5000 + s, 16), registry(), s).models().get(0);
+            ModelFit f = ModelFitter.fit(synthetic(5000 + s, 20), registry(), s).models().get(0);
             Estimate e = f.estimate(NucleationLaw.SURFACTANT_SHIFT);
             if (!e.held() && e.lo() <= TRUE_SHIFT && TRUE_SHIFT <= e.hi()) {
                 covered++;

@@ -138,7 +138,11 @@ class CriticalThicknessModelTest extends GrowthModelContractTest {
     @Test
     void messagesSpeakOfInAsNotOfDroplets() {
         Prediction p = model.predict(typicalConditions(), GAAS_INAS, defaults);
-        String text = String.join(" ", p.notes()) + " " + model.description();
+        StringBuilder all = new StringBuilder(String.join(" ", p.notes())).append(' ').append(model.description());
+        model.parameters().forEach(q -> all.append(' ').append(q.source()).append(' ').append(q.description()));
+        Prediction outside = model.predict(typicalConditions(), IslandNucleationModelTest.GAAS_GA, defaults);
+        all.append(' ').append(outside.validity().reason());
+        String text = all.toString();
         assertFalse(text.toLowerCase(java.util.Locale.ROOT).contains("droplet"), text);
         assertTrue(text.contains("InAs"), text);
     }

@@ -216,7 +216,7 @@ public final class CriticalThicknessModel implements GrowthModel {
         if (SUBSTRATE.equals(surface.substrate()) && DEPOSIT.equals(deposit) && GROUP_V.equals(surface.groupV())) {
             return Optional.empty();
         }
-        String system = deposit == null ? "a film with no deposit metal named"
+        String system = deposit == null ? "a campaign with no deposit metal"
                 : deposit + (surface.groupV() == null ? "" : surface.groupV()) + " on " + surface.substrate();
         return Optional.of("critical-thickness has published strained-island data only for InAs on GaAs(001) "
                 + "(material: substrate GaAs, deposit In, group_v As); " + system + " is outside its validity, "

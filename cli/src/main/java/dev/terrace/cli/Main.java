@@ -123,15 +123,20 @@ public final class Main implements Runnable {
         try {
             return cl.execute(args);
         } catch (OutOfMemoryError e) {
-            err.println("terrace: out of memory: the job needs more than the " + (Runtime.getRuntime().maxMemory() >> 20)
-                    + " MiB of memory Java was given; try fewer runs or a smaller --batch or --grid, or give Java"
-                    + " more memory (for example TERRACE_JAVA_OPTS=-Xmx4g, or java -Xmx4g -jar ...)");
+            err.println(outOfMemoryMessage());
             if (java.util.Arrays.asList(args).contains("--debug")) {
                 e.printStackTrace(err);
             }
             err.flush();
             return EXIT_FAILED;
         }
+    }
+
+    /** @return the one-line message for a job that ran out of Java heap */
+    static String outOfMemoryMessage() {
+        return "terrace: out of memory: the job needs more than the " + (Runtime.getRuntime().maxMemory() >> 20)
+                + " MiB of memory Java was given; try fewer runs or a smaller --batch or --grid, or give Java"
+                + " more memory (for example TERRACE_JAVA_OPTS=-Xmx4g, or java -Xmx4g -jar ...)";
     }
 
     /** @return the configured command line; never null */
@@ -212,6 +217,17 @@ public final class Main implements Runnable {
     private static int handle(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
         PrintWriter err = cl.getErr();
         boolean debug = parsed != null && parsed.expandedArgs().contains("--debug");
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            if (t instanceof OutOfMemoryError) {
+                // thrown in a worker thread and wrapped on the way back: the same message as on the main thread
+                err.println(outOfMemoryMessage());
+                if (debug) {
+                    e.printStackTrace(err);
+                }
+                err.flush();
+                return EXIT_FAILED;
+            }
+        }
         if (e instanceof InputException) {
             ((InputException) e).diagnostics().forEach(d -> err.println(d));
             if (debug) {

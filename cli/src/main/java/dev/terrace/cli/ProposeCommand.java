@@ -94,7 +94,7 @@ final class ProposeCommand implements Callable<Integer> {
         if (!noJournal && !set.proposals().isEmpty()) {
             dev.terrace.core.journal.Journal.appendBatch(lc, set, clock.instant());
         }
-        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
+        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.resolve(spec.commandLine().getErr())));
         if (!global.quiet) {
             err.println(NextStep.afterPropose(campaignFile, set, !noJournal));
         }

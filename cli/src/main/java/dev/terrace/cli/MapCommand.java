@@ -255,10 +255,10 @@ final class MapCommand implements Callable<Integer> {
         sb.append(String.format(Locale.ROOT, "  window (yield >= %s): %s of the map%n", Format.num(WindowMap.WINDOW_THRESHOLD),
                 pct(m.plainWindowFraction())));
         if (m.robust()) {
-            sb.append(String.format(Locale.ROOT, "  with a %s K thermocouple error (sd) on %s together: %s of the map,"
-                            + " %s less%n", Format.num(m.temperatureUncertaintyK()),
+            sb.append(String.format(Locale.ROOT, "  with a thermocouple error of %s K (sd) on %s together: %s of the map,"
+                            + " %s%n", Format.num(m.temperatureUncertaintyK()),
                     String.join(" and ", m.temperatureSettings()), pct(m.windowFraction()),
-                    pct(Math.max(0, m.windowShrink()))));
+                    less(m.windowShrink())));
         } else if (m.temperatureUncertaintyK() == 0 && m.temperatureSettings().isEmpty()) {
             sb.append("  (the campaign has no temperature setting, so a thermocouple error cannot be mapped)\n");
         }
@@ -314,10 +314,7 @@ final class MapCommand implements Callable<Integer> {
     }
 
     private static void cautions(StringBuilder sb, Campaign c) {
-        List<String> cs = Cautions.forCampaign(c);
-        if (!cs.isEmpty()) {
-            sb.append("Caution: ").append(cs.get(0)).append(' ').append(Cautions.DEFER).append('\n');
-        }
+        sb.append(Cautions.pointer(c)).append('\n');
     }
 
     private static String value(Campaign c, String name, Object v) {
@@ -338,5 +335,17 @@ final class MapCommand implements Callable<Integer> {
 
     private static String pct(double f) {
         return String.format(Locale.ROOT, "%.0f %%", 100 * f);
+    }
+
+    /**
+     * How much smaller the window gets, in words: "12 % less", or "the same to the nearest 1 %"
+     * when the shrink rounds to 0 % (never "0 % less").
+     *
+     * @param shrink the share of the map the window loses (negative when it grows)
+     * @return the words; never null
+     */
+    static String less(double shrink) {
+        long p = Math.round(100 * shrink);
+        return p > 0 ? p + " % less" : p < 0 ? -p + " % more" : "the same to the nearest 1 %";
     }
 }

@@ -22,8 +22,8 @@ final class OutputOptions {
     @Option(names = "--out", paramLabel = "FILE", description = "Also write the result to FILE (never overwrites without --force).")
     Path out;
 
-    @Option(names = "--force", description = {"Allow --out to replace an existing file (atomically); the campaign's own",
-            "files are never replaced."})
+    @Option(names = "--force", description = "Allow --out to replace an existing file (atomically); the campaign's"
+            + " own files are never replaced.")
     boolean force;
 
     /** The checked --out target, set by {@link #guard}. */

@@ -71,6 +71,9 @@ final class RankCommand implements Callable<Integer> {
                     + String.join("; ", set.notes()) + ")");
         }
         output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.resolve(spec.commandLine().getErr())));
+        if (!global.quiet) {
+            spec.commandLine().getErr().println(dev.terrace.core.Cautions.pointer(lc.campaign()));
+        }
         return 0;
     }
 

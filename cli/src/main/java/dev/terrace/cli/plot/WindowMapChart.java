@@ -197,7 +197,7 @@ final class WindowMapChart {
         if (map.classOutcome() != null) {
             legend.add(lineItem("boundary between most likely " + map.classOutcome() + " classes", CLASS_LEGEND));
         }
-        legend.add(lineItem(map.robust() ? String.format(Locale.ROOT, "window edge with a %s K thermocouple error",
+        legend.add(lineItem(map.robust() ? String.format(Locale.ROOT, "window edge with a thermocouple error of %s K",
                 Labels.num(map.temperatureUncertaintyK())) : "window edge (yield 0.5)", WINDOW_LEGEND));
         if (map.robust()) {
             legend.add(lineItem("window edge at the set point", PLAIN_LEGEND));
@@ -347,7 +347,7 @@ final class WindowMapChart {
         String s = String.format(Locale.ROOT, "Window (yield \u2265 %s): %s of the map", Labels.num(WindowMap.WINDOW_THRESHOLD),
                 percent(map.windowFraction()));
         if (map.robust()) {
-            s += String.format(Locale.ROOT, " with a %s K thermocouple error (sd) on %s; %s at the set point.",
+            s += String.format(Locale.ROOT, " with a thermocouple error of %s K (sd) on %s; %s at the set point.",
                     Labels.num(map.temperatureUncertaintyK()), String.join(" and ", map.temperatureSettings()),
                     percent(map.plainWindowFraction()));
         } else {

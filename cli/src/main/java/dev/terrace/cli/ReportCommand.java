@@ -246,8 +246,10 @@ final class ReportCommand implements Callable<Integer> {
         double[] predicted = new double[n];
         double[] lo = new double[n];
         double[] hi = new double[n];
+        String[] ids = new String[n];
         for (int i = 0; i < n; i++) {
             ParityPoint p = pts.get(i);
+            ids[i] = p.runId();
             groups[i] = chartName(p.surrogate());
             measured[i] = p.measured();
             predicted[i] = p.predicted();
@@ -255,10 +257,22 @@ final class ReportCommand implements Callable<Integer> {
             hi[i] = p.hi90();
         }
         String quantity = o.outcome() + " (" + chartUnit(spec.unit().symbol()) + ")";
+        double tMin = Double.NaN;
+        double tMax = Double.NaN;
+        for (dev.terrace.core.campaign.Target t : c.targets()) {
+            if (t.outcome().equals(o.outcome()) && t.hasWindow()) {
+                tMin = t.min();
+                tMax = t.max();
+            }
+        }
+        double bandMin = tMin;
+        double bandMax = tMax;
+        String labelled = chartName(Validation.PHYSICS_GP);
         return figure("parity-" + key(o.outcome()), "Each run's measured " + o.outcome() + " against the prediction "
                 + "made without it, for each predictor; bars are 90 % intervals, the dashed line is a perfect "
-                + "prediction.", () -> Plots.parity(quantity, o.scale().equals("log10"), groups, measured, predicted,
-                lo, hi), ReportContent.VALIDATION, problems);
+                + "prediction, the grey band the target, and the " + labelled + " points carry their run ids.",
+                () -> Plots.parity(quantity, o.scale().equals("log10"), groups, measured, predicted,
+                lo, hi, ids, labelled, bandMin, bandMax), ReportContent.VALIDATION, problems);
     }
 
     /** Short legend names of the predictors. */

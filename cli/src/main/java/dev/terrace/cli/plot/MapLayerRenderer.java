@@ -57,12 +57,6 @@ final class MapLayerRenderer extends XYBlockRenderer {
     /** Spacing of the hatch lines in pixels. */
     static final double HATCH_SPACING = 7;
 
-    /**
-     * Raster pixels per chart pixel for the cells: 3, so a 640-pixel-wide figure printed 17 cm wide
-     * (96 chart pixels per inch) has about 290 image pixels per inch, print resolution.
-     */
-    static final int RASTER_SCALE = 3;
-
     private final transient WindowMapResult map;
     private final double[] xe;
     private final double[] ye;
@@ -95,7 +89,7 @@ final class MapLayerRenderer extends XYBlockRenderer {
     public void drawItem(Graphics2D g2, XYItemRendererState state, Rectangle2D dataArea, PlotRenderingInfo info,
                          XYPlot plot, ValueAxis domainAxis, ValueAxis rangeAxis, XYDataset dataset, int series,
                          int item, CrosshairState crosshairState, int pass) {
-        // all cells are drawn at once, as one raster image, when the last item comes
+        // all cells are drawn at once, merged by colour, when the last item comes
         if (item != dataset.getItemCount(series) - 1) {
             return;
         }
@@ -104,42 +98,49 @@ final class MapLayerRenderer extends XYBlockRenderer {
     }
 
     /**
-     * Draws every cell into one raster image of {@value #RASTER_SCALE} pixels per chart pixel and
-     * places it over the data area. One embedded image instead of a filled and outlined rectangle
-     * per cell keeps an SVG map small (a 41 x 41 map drawn as vectors was about 0.87 MB of SVG
-     * text); the cells are flat colours, so the image compresses well and stays sharp in print.
+     * Draws the cells as one filled outline per colour: cells of a row with the same colour are
+     * merged into one rectangle, and the rectangles of each colour joined into one area. The paint
+     * scale has a few dozen steps, so an SVG map holds a few dozen paths instead of a filled and
+     * outlined rectangle per cell (a 41 x 41 map drawn cell by cell was about 0.87 MB of SVG text),
+     * and a joined area has no hairline seams inside it.
      */
     private void drawCells(Graphics2D g2, Rectangle2D dataArea, XYPlot plot, ValueAxis xa, ValueAxis ya,
                            XYZDataset dataset, int series) {
-        int w = (int) Math.ceil(dataArea.getWidth() * RASTER_SCALE);
-        int h = (int) Math.ceil(dataArea.getHeight() * RASTER_SCALE);
-        if (w <= 0 || h <= 0) {
-            return;
+        int nx = map.nx();
+        int ny = map.ny();
+        java.awt.Paint[] paints = new java.awt.Paint[nx * ny];
+        for (int item = 0; item < dataset.getItemCount(series) && item < paints.length; item++) {
+            int i = item % nx;
+            int j = item / nx;
+            paints[item] = map.feasibleAt(i, j) ? getPaintScale().getPaint(dataset.getZValue(series, item))
+                    : INFEASIBLE_FILL;
         }
-        java.awt.image.BufferedImage img = new java.awt.image.BufferedImage(w, h, java.awt.image.BufferedImage.TYPE_INT_ARGB);
-        Graphics2D g = img.createGraphics();
-        try {
-            g.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
-            int nx = map.nx();
-            for (int item = 0; item < dataset.getItemCount(series); item++) {
-                int i = item % nx;
-                int j = item / nx;
-                Rectangle2D b = cell(i, j, dataArea, plot, xa, ya);
-                int x0 = (int) Math.round((b.getMinX() - dataArea.getMinX()) * RASTER_SCALE);
-                int x1 = (int) Math.round((b.getMaxX() - dataArea.getMinX()) * RASTER_SCALE);
-                int y0 = (int) Math.round((b.getMinY() - dataArea.getMinY()) * RASTER_SCALE);
-                int y1 = (int) Math.round((b.getMaxY() - dataArea.getMinY()) * RASTER_SCALE);
-                double z = dataset.getZValue(series, item);
-                g.setPaint(map.feasibleAt(i, j) ? getPaintScale().getPaint(z) : INFEASIBLE_FILL);
-                g.fillRect(x0, y0, Math.max(1, x1 - x0), Math.max(1, y1 - y0));
+        java.util.Map<java.awt.Paint, Area> byPaint = new java.util.LinkedHashMap<>();
+        for (int j = 0; j < ny; j++) {
+            int i = 0;
+            while (i < nx) {
+                java.awt.Paint p = paints[j * nx + i];
+                int end = i;
+                while (end + 1 < nx && java.util.Objects.equals(paints[j * nx + end + 1], p)) {
+                    end++;
+                }
+                if (p != null) {
+                    Rectangle2D a = cell(i, j, dataArea, plot, xa, ya);
+                    Rectangle2D b = cell(end, j, dataArea, plot, xa, ya);
+                    byPaint.computeIfAbsent(p, k -> new Area()).add(new Area(a.createUnion(b)));
+                }
+                i = end + 1;
             }
-        } finally {
-            g.dispose();
         }
-        java.awt.geom.AffineTransform at = java.awt.geom.AffineTransform.getTranslateInstance(dataArea.getMinX(),
-                dataArea.getMinY());
-        at.scale(1.0 / RASTER_SCALE, 1.0 / RASTER_SCALE);
-        g2.drawImage(img, at, null);
+        Object aa = g2.getRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING);
+        // no antialiasing at the joins between colours, so no light seams show between them
+        g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_OFF);
+        for (java.util.Map.Entry<java.awt.Paint, Area> e : byPaint.entrySet()) {
+            g2.setPaint(e.getKey());
+            g2.fill(e.getValue());
+        }
+        g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING,
+                aa == null ? java.awt.RenderingHints.VALUE_ANTIALIAS_DEFAULT : aa);
     }
 
     private Rectangle2D cell(int i, int j, Rectangle2D dataArea, XYPlot plot, ValueAxis xa, ValueAxis ya) {

@@ -97,6 +97,21 @@ public final class Plots {
      * @param points   the held-out predictions, in the outcome's campaign unit; never null
      * @return the chart; never null
      */
+    public static JFreeChart parity(String quantity, boolean logScale, String[] groups, double[] measured,
+                                    double[] predicted, double[] lo90, double[] hi90, String[] runIds,
+                                    String labelGroup, double targetMin, double targetMax) {
+        return ParityChart.parity(quantity, logScale, groups, measured, predicted, lo90, hi90, runIds, labelGroup,
+                targetMin, targetMax);
+    }
+
+    /**
+     * Parity chart of held-out predictions.
+     *
+     * @param quantity what is compared, with its unit
+     * @param logScale true for log axes
+     * @param points   the held-out predictions; never null
+     * @return the chart; never null
+     */
     public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points) {
         return ParityChart.parity(quantity, logScale, points);
     }

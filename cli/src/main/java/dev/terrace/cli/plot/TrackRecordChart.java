@@ -60,6 +60,13 @@ final class TrackRecordChart {
             }
         }
         boolean band = Double.isFinite(targetMin) || Double.isFinite(targetMax);
+        // the axis shows the band's finite edges, so the band reads as a band and not as the background
+        for (double t : new double[] {targetMin, targetMax}) {
+            if (usable(t, logScale)) {
+                lo = Math.min(lo, t);
+                hi = Math.max(hi, t);
+            }
+        }
         if (!(hi > lo)) {
             lo = logScale ? (lo > 0 && Double.isFinite(lo) ? lo / 2 : 1) : (Double.isFinite(lo) ? lo - 1 : 0);
             hi = logScale ? lo * 4 : lo + 2;

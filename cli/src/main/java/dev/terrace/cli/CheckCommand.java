@@ -61,6 +61,10 @@ final class CheckCommand implements Callable<Integer> {
                 c.surface().monolayerHeightNm(), c.surface().sitesPerCm2()));
         out.println("  models    " + (c.models().isEmpty() ? "(none: data only)" : String.join(", ", c.models())));
         out.println("  run log   " + lc.runLog().file());
+        if (c.temperatureCalibration().estimate().isCalibrated()) {
+            out.println("  T offset  " + FitExtras.offsetLine(c.temperatureCalibration().estimate())
+                    + (c.temperatureCalibration().fitOffset() ? "; terrace fit also fits it" : ""));
+        }
         out.println();
         out.println("Runs: " + s.runs() + " (" + s.ok() + " ok, " + s.failed() + " failed)");
         out.println();

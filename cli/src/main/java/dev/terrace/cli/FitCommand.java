@@ -12,7 +12,7 @@ import dev.terrace.core.fit.FitResults.RunUse;
 import dev.terrace.core.fit.FitResults.FitReport;
 import dev.terrace.core.fit.FitResults.ModelFit;
 import dev.terrace.core.fit.FitResults.OutcomeFit;
-import dev.terrace.core.fit.ModelFitter;
+import dev.terrace.core.fit.CampaignFit;
 import dev.terrace.core.plugins.PluginRegistry;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -92,19 +92,26 @@ final class FitCommand implements Callable<Integer> {
             plotTarget.check();
         }
         FitReport report;
+        CampaignFit whole;
         try (Progress bar = Progress.startPhases("fit", 1, global)) {
             bar.message("fitting " + String.join(", ", lc.campaign().models()));
-            report = ModelFitter.fit(lc, reg, seed);
+            whole = CampaignFit.run(lc, reg, seed);
+            report = whole.report();
             bar.step();
         }
         if (format.equals("json")) {
-            out.println(json(report));
+            ObjectMapper om = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+            ObjectNode root = (ObjectNode) om.readTree(json(report));
+            FitExtras.json(whole, root);
+            out.println(om.writeValueAsString(root));
         } else {
+            FitExtras.printOffset(whole, out);
             printTable(report, out, showResiduals);
+            FitExtras.printPriors(whole, out);
         }
         out.flush();
         if (plot != null) {
-            arrheniusPlot(lc, err);
+            arrheniusPlot(lc, err, whole.offset().value());
         }
         if (!report.fittedAnything()) {
             StringBuilder sb = new StringBuilder("nothing could be fitted:");
@@ -120,7 +127,7 @@ final class FitCommand implements Callable<Integer> {
         return 0;
     }
 
-    private void arrheniusPlot(LoadedCampaign lc, PrintWriter err) throws Exception {
+    private void arrheniusPlot(LoadedCampaign lc, PrintWriter err, double offsetK) throws Exception {
         var c = lc.campaign();
         var density = ReportCommand.densityOutcome(c);
         var temp = ReportCommand.temperatureSetting(c);
@@ -133,7 +140,8 @@ final class FitCommand implements Callable<Integer> {
             throw new JobFailedException("no Arrhenius plot: fewer than two ok runs at different temperatures measured "
                     + density.name());
         }
-        double[] t = pts.stream().mapToDouble(p -> p[0]).toArray();
+        // readings to true temperatures with the thermocouple offset the fit applied
+        double[] t = pts.stream().mapToDouble(p -> p[0] + offsetK).toArray();
         double[] n = pts.stream().mapToDouble(p -> p[1]).toArray();
         dev.terrace.core.fit.Arrhenius a = dev.terrace.core.fit.Arrhenius.fit(t, n);
         var chart = dev.terrace.cli.plot.Plots.arrhenius(t, n, a.energyEv(), a.lo(), a.hi(),

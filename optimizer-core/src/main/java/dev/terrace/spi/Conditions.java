@@ -31,8 +31,11 @@ public record Conditions(Map<Role, Double> numbers, Map<Role, String> categories
                 throw new IllegalArgumentException("role " + r.key() + " has a non-finite value " + v);
             }
         });
-        numbers = numbers.isEmpty() ? Map.of() : Map.copyOf(new EnumMap<>(numbers));
-        categories = Map.copyOf(categories);
+        categories.forEach((r, v) -> Objects.requireNonNull(v, () -> "role " + r.key() + " has no category"));
+        // role order (EnumMap): the same iteration order in every JVM, and array-indexed lookups
+        numbers = numbers.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new EnumMap<>(numbers));
+        categories = categories.isEmpty() ? Map.of()
+                : java.util.Collections.unmodifiableMap(new EnumMap<>(categories));
     }
 
     /** @return a builder for conditions; never null */

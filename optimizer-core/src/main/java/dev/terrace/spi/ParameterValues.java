@@ -21,7 +21,8 @@ public record ParameterValues(Map<String, Double> values) {
                 throw new IllegalArgumentException("parameter " + k + " is not a finite number: " + v);
             }
         });
-        values = Map.copyOf(values);
+        // declaration order (the order given), the same in every JVM
+        values = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(values));
     }
 
     /**

@@ -45,8 +45,9 @@ public record Prediction(Map<Role, Double> values, Map<Role, Map<String, Double>
             }
             p.put(r, java.util.Collections.unmodifiableMap(new LinkedHashMap<>(m)));
         });
-        values = values.isEmpty() ? Map.of() : Map.copyOf(new EnumMap<>(values));
-        probabilities = Map.copyOf(p);
+        // role order (EnumMap): the same iteration order in every JVM, and array-indexed lookups
+        values = values.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new EnumMap<>(values));
+        probabilities = p.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(p);
         notes = List.copyOf(notes);
     }
 

@@ -26,11 +26,16 @@ import java.util.Optional;
  * @param runs       the run-log file, resolved against the campaign file's folder; never null
  * @param journal    the proposal journal ({@code journal:} key, default {@value CampaignReader#DEFAULT_JOURNAL}
  *                   beside the campaign file), resolved against the campaign file's folder; never null
+ * @param temperatureCalibration how the substrate-temperature readings were calibrated
+ *                   ({@code temperature_calibration:}); {@link TemperatureCalibration#NONE} when absent; never null
+ * @param priors     earlier campaigns whose fitted parameters are priors of this one ({@code priors:});
+ *                   never null, possibly empty
  * @since 0.1
  */
 public record Campaign(String id, String title, MaterialSpec material, Surface surface,
                        List<ParameterSpec> parameters, List<OutcomeSpec> outcomes, List<Target> targets,
-                       List<LinearLimit> limits, List<String> models, Path file, Path runs, Path journal) {
+                       List<LinearLimit> limits, List<String> models, Path file, Path runs, Path journal,
+                       TemperatureCalibration temperatureCalibration, List<PriorSource> priors) {
 
     /** Copies and checks the contents. */
     public Campaign {
@@ -46,6 +51,45 @@ public record Campaign(String id, String title, MaterialSpec material, Surface s
         targets = List.copyOf(targets);
         limits = List.copyOf(limits);
         models = List.copyOf(models);
+        Objects.requireNonNull(temperatureCalibration, "temperatureCalibration");
+        priors = List.copyOf(priors);
+    }
+
+    /**
+     * A campaign without temperature calibration or priors.
+     *
+     * @param id         identifier
+     * @param title      free text
+     * @param material   the material section
+     * @param surface    the resolved material facts
+     * @param parameters the settings
+     * @param outcomes   the outcomes
+     * @param targets    the targets
+     * @param limits     the linear limits
+     * @param models     growth-model plugin ids
+     * @param file       the campaign file
+     * @param runs       the run-log file
+     * @param journal    the proposal journal
+     */
+    public Campaign(String id, String title, MaterialSpec material, Surface surface,
+                    List<ParameterSpec> parameters, List<OutcomeSpec> outcomes, List<Target> targets,
+                    List<LinearLimit> limits, List<String> models, Path file, Path runs, Path journal) {
+        this(id, title, material, surface, parameters, outcomes, targets, limits, models, file, runs, journal,
+                TemperatureCalibration.NONE, List.of());
+    }
+
+    /**
+     * @param calibration the calibration to use instead
+     * @return a copy with that temperature calibration; never null
+     */
+    public Campaign withTemperatureCalibration(TemperatureCalibration calibration) {
+        return new Campaign(id, title, material, surface, parameters, outcomes, targets, limits, models, file, runs,
+                journal, calibration, priors);
+    }
+
+    /** @return the offset, kelvin, added to every substrate-temperature reading before the physics */
+    public double temperatureOffsetK() {
+        return temperatureCalibration.appliedOffsetK();
     }
 
     /**

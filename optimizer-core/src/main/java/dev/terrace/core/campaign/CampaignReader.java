@@ -59,7 +59,8 @@ public final class CampaignReader {
 
     /** Allowed top-level keys of a campaign file. */
     public static final List<String> TOP_KEYS =
-            List.of("campaign", "title", "material", "parameters", "outcomes", "targets", "limits", "models", "runs", "journal");
+            List.of("campaign", "title", "material", "parameters", "outcomes", "targets", "limits", "models", "runs", "journal",
+                    "temperature_calibration", "priors");
     /** Column names the run log reserves for itself. */
     public static final Set<String> RESERVED_COLUMNS = Set.of("run_id", "status", "date", "proposal", "notes");
     /** Default run-log file name when {@code runs:} is absent. */
@@ -256,14 +257,19 @@ public final class CampaignReader {
             error(top.get("journal").getValueNode(), "'journal' names the run log " + runs
                     + "; expected a file of its own (for example " + DEFAULT_JOURNAL + ")");
         }
-        if (id == null || material == null || surface == null || problems.stream().anyMatch(Diagnostic::isError)) {
+        CalibrationReader cal = new CalibrationReader(file, problems);
+        TemperatureCalibration calibration = top.containsKey("temperature_calibration")
+                ? cal.calibration(top.get("temperature_calibration").getValueNode()) : TemperatureCalibration.NONE;
+        List<PriorSource> priors = top.containsKey("priors") ? cal.priors(top.get("priors").getValueNode()) : List.of();
+        if (id == null || material == null || surface == null || calibration == null
+                || problems.stream().anyMatch(Diagnostic::isError)) {
             return null;
         }
         Path dir = file.toAbsolutePath().getParent();
         Path runsPath = dir == null ? Path.of(runs) : dir.resolve(runs).normalize();
         Path journalPath = dir == null ? Path.of(journal) : dir.resolve(journal).normalize();
         return new Campaign(id, title, material, surface, parameters, outcomes, targets, limits, models, file,
-                runsPath, journalPath);
+                runsPath, journalPath, calibration, priors);
     }
 
     private Object[] material(Node n) {

@@ -53,6 +53,12 @@ abstract class FitData {
     final Map<String, String> sharedReason = new LinkedHashMap<>();
     int maxEvaluations = 3000;
     boolean intervals = true;
+    /**
+     * Gaussian priors on the fitting scale by parameter name ({mean, sd} in u, the log10 scale for
+     * parameters fitted in log): earlier series of the same chamber ({@link SeriesPriors}). Each enters
+     * the likelihood as one more residual {@code (u − mean)/sd} while the parameter is free.
+     */
+    final Map<String, double[]> prior = new LinkedHashMap<>();
 
     FitData(Campaign c, List<Run> runs, GrowthModel model, ModelChain upstream, SplittableRandom rng) {
         this.c = c;
@@ -218,6 +224,104 @@ abstract class FitData {
             }
         });
         return b2.build();
+    }
+
+    /**
+     * Correlations between prior parameters (name to name to ρ), from the earlier fit's covariance:
+     * the prior is then one multivariate Gaussian, so a well-known combination of two parameters
+     * (prefactor and energy of an Arrhenius law, say) stays well known. Missing pairs are uncorrelated.
+     */
+    final Map<String, Map<String, Double>> priorCorrelation = new LinkedHashMap<>();
+
+    /**
+     * The whitened prior residuals of the free parameters that have a prior, in free order:
+     * {@code L⁻¹(u − mean)} with {@code LLᵀ} the prior covariance of those parameters, so their sum of
+     * squares is the Mahalanobis distance (each is {@code (u − mean)/sd} when uncorrelated).
+     */
+    double[] priorResiduals(List<ModelParameter> free, double[] u) {
+        List<String> names = new ArrayList<>();
+        List<Double> d = new ArrayList<>();
+        for (int i = 0; i < free.size(); i++) {
+            double[] ps = prior.get(free.get(i).name());
+            if (ps != null) {
+                names.add(free.get(i).name());
+                d.add(u[i] - ps[0]);
+            }
+        }
+        double[][] l = priorCholesky(names);
+        int n = names.size();
+        double[] r = new double[n];
+        for (int i = 0; i < n; i++) {
+            double s = d.get(i);
+            for (int j = 0; j < i; j++) {
+                s -= l[i][j] * r[j];
+            }
+            r[i] = s / l[i][i];
+        }
+        return r;
+    }
+
+    /**
+     * Lower Cholesky factor of the prior covariance of some prior parameters. Correlations that would
+     * make it indefinite (priors from different series combined) are shrunk towards zero until it is
+     * positive definite.
+     */
+    double[][] priorCholesky(List<String> names) {
+        int n = names.size();
+        for (double shrink = 1; ; shrink *= 0.5) {
+            double[][] a = new double[n][n];
+            for (int i = 0; i < n; i++) {
+                for (int j = 0; j < n; j++) {
+                    double rho = i == j ? 1 : shrink * priorCorrelation.getOrDefault(names.get(i), Map.of())
+                            .getOrDefault(names.get(j), 0.0);
+                    a[i][j] = rho * prior.get(names.get(i))[1] * prior.get(names.get(j))[1];
+                }
+            }
+            double[][] l = new double[n][n];
+            boolean ok = true;
+            for (int i = 0; i < n && ok; i++) {
+                for (int j = 0; j <= i; j++) {
+                    double s = a[i][j];
+                    for (int k = 0; k < j; k++) {
+                        s -= l[i][k] * l[j][k];
+                    }
+                    if (i == j) {
+                        if (!(s > 1e-12 * a[i][i])) {
+                            ok = false;
+                            break;
+                        }
+                        l[i][i] = Math.sqrt(s);
+                    } else {
+                        l[i][j] = s / l[j][j];
+                    }
+                }
+            }
+            if (ok || shrink < 1e-6) {
+                return ok ? l : diagonal(names);
+            }
+        }
+    }
+
+    private double[][] diagonal(List<String> names) {
+        double[][] l = new double[names.size()][names.size()];
+        for (int i = 0; i < names.size(); i++) {
+            l[i][i] = prior.get(names.get(i))[1];
+        }
+        return l;
+    }
+
+    /** Sum of squared prior residuals: the priors' share of −2 ln L (up to constants). */
+    double priorChi2(List<ModelParameter> free, double[] u) {
+        double s = 0;
+        for (double r : priorResiduals(free, u)) {
+            s += r * r;
+        }
+        return s;
+    }
+
+    /** @return how many of these free parameters carry a prior */
+    int priorCount(List<ModelParameter> free) {
+        return (int) free.stream().filter(p -> prior.containsKey(p.name())).count();
     }
 
     double scaled(OutcomeSpec o, double campaignValue) {

@@ -196,7 +196,19 @@ abstract class FitLikelihood extends FitData {
         for (double x : r) {
             s += x * x;
         }
-        return 0.5 * s + classNll(preds);
+        return 0.5 * (s + priorChi2(free, u)) + classNll(preds);
+    }
+
+    /** Normalised numeric residuals followed by the prior residuals of the free parameters. */
+    double[] allResiduals(Map<String, Double> combo, List<ModelParameter> free, double[] u, Map<String, Double> sigma) {
+        double[] r = numericResiduals(predictAll(values(combo, free, u)), sigma);
+        double[] pr = priorResiduals(free, u);
+        if (pr.length == 0) {
+            return r;
+        }
+        double[] out = java.util.Arrays.copyOf(r, r.length + pr.length);
+        System.arraycopy(pr, 0, out, r.length, pr.length);
+        return out;
     }
 
 }

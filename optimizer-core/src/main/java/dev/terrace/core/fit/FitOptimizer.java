@@ -67,7 +67,7 @@ abstract class FitOptimizer extends FreeParameters {
             fitFree(cf, fitted, rng, 0);
         }
         Prediction[] preds = predictAll(values(combo, cf.free, cf.u));
-        cf.m2ll = minus2LogL(preds);
+        cf.m2ll = minus2LogL(preds) + priorChi2(cf.free, cf.u);
         cf.k = cf.free.size() + numericOutcomes.size();
         int n = obs.size();
         cf.aicc = n - cf.k - 1 > 0 ? cf.m2ll + 2.0 * cf.k + 2.0 * cf.k * (cf.k + 1) / (n - cf.k - 1) : Double.NaN;
@@ -122,7 +122,7 @@ abstract class FitOptimizer extends FreeParameters {
                 Object[] res = warmSigma != null ? reweighted(s0, combo, cf.free, warmSigma, WARM_RADIUS_FRACTION)
                         : reweighted(s0, combo, cf.free, startSigma(), COLD_RADIUS_FRACTION);
                 double[] uu = (double[]) res[0];
-                double val = minus2LogL(predictAll(values(combo, cf.free, uu)));
+                double val = minus2LogL(predictAll(values(combo, cf.free, uu))) + priorChi2(cf.free, uu);
                 if (val < bestVal) {
                     bestVal = val;
                     bestU = uu;
@@ -204,6 +204,7 @@ abstract class FitOptimizer extends FreeParameters {
         thin.sharedReason.putAll(sharedReason);
         thin.maxEvaluations = maxEvaluations;
         thin.intervals = intervals;
+        thin.prior.putAll(prior);
         thin.collect(dev.terrace.spi.ParameterValues.defaults(params));
         if (thin.used.size() < MIN_RUNS || thin.numericOutcomes.isEmpty() && !thin.hasClass) {
             return new Object[] {starts.get(0), startSigma()};
@@ -212,7 +213,8 @@ abstract class FitOptimizer extends FreeParameters {
         double bestVal = Double.POSITIVE_INFINITY;
         for (double[] s0 : starts) {
             Object[] res = thin.reweighted(s0, combo, free, thin.startSigma(), COLD_RADIUS_FRACTION);
-            double val = thin.minus2LogL(thin.predictAll(thin.values(combo, free, (double[]) res[0])));
+            double val = thin.minus2LogL(thin.predictAll(thin.values(combo, free, (double[]) res[0])))
+                    + thin.priorChi2(free, (double[]) res[0]);
             if (val < bestVal) {
                 bestVal = val;
                 best = res;
@@ -277,17 +279,17 @@ abstract class FitOptimizer extends FreeParameters {
 
     double[] levenbergMarquardt(double[] start, double[] lo, double[] hi, Map<String, Double> combo,
                                 List<ModelParameter> free, Map<String, Double> sigma) {
-        int nRes = numericCount();
+        int nRes = numericCount() + priorCount(free);
         MultivariateJacobianFunction f = point -> {
             double[] u = clamp(point.toArray(), lo, hi);
-            double[] r0 = numericResiduals(predictAll(values(combo, free, u)), sigma);
+            double[] r0 = allResiduals(combo, free, u, sigma);
             double[][] j = new double[nRes][u.length];
             for (int k = 0; k < u.length; k++) {
                 double h = 1e-6 * Math.max(1, Math.abs(u[k])) + 1e-7 * (hi[k] - lo[k]);
                 double[] up = u.clone();
                 up[k] = u[k] + h <= hi[k] ? u[k] + h : u[k] - h;
                 double step = up[k] - u[k];
-                double[] r1 = numericResiduals(predictAll(values(combo, free, up)), sigma);
+                double[] r1 = allResiduals(combo, free, up, sigma);
                 for (int i = 0; i < nRes; i++) {
                     // residual = (y - f)/s, model value = -residual
                     j[i][k] = -(r1[i] - r0[i]) / step;

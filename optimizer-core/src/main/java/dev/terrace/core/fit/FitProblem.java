@@ -174,7 +174,7 @@ final class FitProblem extends FitUncertainty {
         int d = best.free.size();
         double[][] cov = d == 0 ? new double[0][0] : covariance(best);
         int nNum = (int) obs.stream().filter(o -> !o.isClass()).count();
-        int dof = (hasClass ? obs.size() : nNum) - d;
+        int dof = (hasClass ? obs.size() : nNum) + priorCount(best.free) - d;
         boolean useBootstrap = intervals && d > 0 && (cov == null || dof < MIN_DOF_FOR_COVARIANCE);
         double[][] ci = new double[d][2];
         String method;
@@ -193,10 +193,14 @@ final class FitProblem extends FitUncertainty {
             double t = new TDistribution(Math.max(dof, 1)).inverseCumulativeProbability(0.975);
             for (int k = 0; k < d; k++) {
                 double se = Math.sqrt(Math.max(cov[k][k], 0));
-                ci[k][0] = best.u[k] - t * se;
-                ci[k][1] = best.u[k] + t * se;
+                // a parameter with a prior: its information is mostly the prior's, whose sd is known, so the
+                // normal quantile applies (Student t only widens for a noise level estimated from residuals)
+                double q = prior.containsKey(best.free.get(k).name()) ? ParameterPrior.Z95 : t;
+                ci[k][0] = best.u[k] - q * se;
+                ci[k][1] = best.u[k] + q * se;
             }
-            method = "95 % interval from the fit's covariance (Student t, " + Math.max(dof, 1) + " degrees of freedom)";
+            method = "95 % interval from the fit's covariance (Student t, " + Math.max(dof, 1) + " degrees of freedom"
+                    + (prior.isEmpty() ? ")" : "; normal quantile where an earlier series gives a prior)");
         }
         ParameterValues values = values(best.combo, best.free, best.u);
         List<Estimate> est = new ArrayList<>();

@@ -74,7 +74,7 @@ abstract class FitUncertainty extends FitOptimizer {
     /** Gauss-Newton information J^T J (numeric-only models), better conditioned than differences. */
     double[][] gaussNewton(CandidateFit cf) {
         int d = cf.u.length;
-        double[] r0 = numericResiduals(predictAll(values(cf.combo, cf.free, cf.u)), cf.sigma);
+        double[] r0 = allResiduals(cf.combo, cf.free, cf.u, cf.sigma);
         double[][] j = new double[r0.length][d];
         for (int k = 0; k < d; k++) {
             ModelParameter p = cf.free.get(k);
@@ -83,8 +83,8 @@ abstract class FitUncertainty extends FitOptimizer {
             double[] b = cf.u.clone();
             a[k] = Math.min(uHi(p), cf.u[k] + h);
             b[k] = Math.max(uLo(p), cf.u[k] - h);
-            double[] ra = numericResiduals(predictAll(values(cf.combo, cf.free, a)), cf.sigma);
-            double[] rb = numericResiduals(predictAll(values(cf.combo, cf.free, b)), cf.sigma);
+            double[] ra = allResiduals(cf.combo, cf.free, a, cf.sigma);
+            double[] rb = allResiduals(cf.combo, cf.free, b, cf.sigma);
             for (int i = 0; i < r0.length; i++) {
                 j[i][k] = (ra[i] - rb[i]) / (a[k] - b[k]);
             }
@@ -104,6 +104,20 @@ abstract class FitUncertainty extends FitOptimizer {
     double[][] covariance(CandidateFit cf) {
         // Gauss-Newton needs plain residuals; class and censored terms take the observed information
         double[][] info = hasClass || hasCensored ? hessian(cf) : gaussNewton(cf);
+        // the priors' share of the information (their sd is known, not estimated from the residuals)
+        double[][] priorInfo = priorInformation(cf.free);
+        int k = priorCount(cf.free);
+        if (!hasClass && k > 0) {
+            // inflate the data's share alone for the estimated noise, then add the priors' share
+            int n = numericCount();
+            int dofData = n - cf.free.size() + k;
+            double f = dofData > 0 ? (double) n / dofData : 1;
+            for (int a = 0; a < info.length; a++) {
+                for (int b = 0; b < info.length; b++) {
+                    info[a][b] = (info[a][b] - priorInfo[a][b]) / f + priorInfo[a][b];
+                }
+            }
+        }
         RealMatrix m = new Array2DRowRealMatrix(info);
         EigenDecomposition ed = new EigenDecomposition(m);
         double[] ev = ed.getRealEigenvalues();
@@ -115,7 +129,7 @@ abstract class FitUncertainty extends FitOptimizer {
         }
         double[][] cov = ed.getSolver().getInverse().getData();
         // correct for the residual degrees of freedom of the estimated noise (numeric only)
-        if (!hasClass) {
+        if (!hasClass && k == 0) {
             int n = numericCount();
             int dof = n - cf.free.size();
             if (dof > 0) {
@@ -128,6 +142,36 @@ abstract class FitUncertainty extends FitOptimizer {
             }
         }
         return cov;
+    }
+
+    /**
+     * The prior information matrix in free-parameter order: the inverse prior covariance of the free
+     * parameters that have a prior ({@code L⁻ᵀL⁻¹}), zero elsewhere.
+     */
+    double[][] priorInformation(List<ModelParameter> free) {
+        int d = free.size();
+        double[][] out = new double[d][d];
+        List<Integer> idx = new ArrayList<>();
+        List<String> names = new ArrayList<>();
+        for (int i = 0; i < d; i++) {
+            if (prior.containsKey(free.get(i).name())) {
+                idx.add(i);
+                names.add(free.get(i).name());
+            }
+        }
+        if (names.isEmpty()) {
+            return out;
+        }
+        double[][] l = priorCholesky(names);
+        RealMatrix lm = new Array2DRowRealMatrix(l);
+        RealMatrix cov = lm.multiply(lm.transpose());
+        double[][] inv = new org.apache.commons.math3.linear.LUDecomposition(cov).getSolver().getInverse().getData();
+        for (int a = 0; a < idx.size(); a++) {
+            for (int b = 0; b < idx.size(); b++) {
+                out[idx.get(a)][idx.get(b)] = inv[a][b];
+            }
+        }
+        return out;
     }
 
     double[][] bootstrap(CandidateFit cf) {
@@ -151,8 +195,25 @@ abstract class FitUncertainty extends FitOptimizer {
         int savedMax = maxEvaluations;
         maxEvaluations = 800;
         SplittableRandom r = rng.split();
+        Map<String, double[]> priorMeans = new java.util.LinkedHashMap<>(prior);
         try {
             for (int b = 0; b < reps; b++) {
+                // the prior is one more observation: draw its mean afresh, as the data are redrawn,
+                // so the spread of the refits is that of the combined estimate, not the data's share alone
+                List<String> names = new ArrayList<>(priorMeans.keySet());
+                double[][] l = priorCholesky(names);
+                double[] z = new double[names.size()];
+                for (int i = 0; i < z.length; i++) {
+                    z[i] = r.nextGaussian();
+                }
+                for (int i = 0; i < z.length; i++) {
+                    double[] ps = priorMeans.get(names.get(i));
+                    double shift = 0;
+                    for (int j = 0; j <= i; j++) {
+                        shift += l[i][j] * z[j];
+                    }
+                    prior.put(names.get(i), new double[] {ps[0] + shift, ps[1]});
+                }
                 List<Obs> synth = new ArrayList<>();
                 for (Obs o : original) {
                     if (o.isClass()) {
@@ -184,6 +245,7 @@ abstract class FitUncertainty extends FitOptimizer {
                 samples[b] = u;
             }
         } finally {
+            prior.putAll(priorMeans);
             obs.clear();
             obs.addAll(original);
             maxEvaluations = savedMax;

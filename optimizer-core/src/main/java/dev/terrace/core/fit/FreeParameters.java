@@ -95,7 +95,8 @@ abstract class FreeParameters extends FitLikelihood {
         for (int i = 0; i < all.size(); i++) {
             u0all[i] = toU(all.get(i), at.getOrDefault(all.get(i).name(), all.get(i).defaultValue()));
         }
-        double[][] jAll = sensitivity(cf.combo, all, u0all);
+        double[][] jAll = withPriorRows(sensitivity(cf.combo, all, u0all), all);
+        nObs = jAll.length;
         double maxNorm = 0;
         double[] norms = new double[all.size()];
         for (int k = 0; k < all.size(); k++) {
@@ -118,8 +119,11 @@ abstract class FreeParameters extends FitLikelihood {
                 cf.heldReason.put(p.name(), "these runs do not depend on it");
                 continue;
             }
-            if (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
-                    || effective < OBSERVATIONS_PER_PARAMETER * (free.size() + 1)) {
+            // a parameter with a prior from an earlier series is determined by it whatever the runs:
+            // the count of runs per parameter applies to the others only
+            long freeWithoutPrior = free.stream().filter(f -> !prior.containsKey(f.name())).count();
+            if (!prior.containsKey(p.name()) && (nObs - (free.size() + 1 + sigmas) < MIN_RESIDUAL_DOF
+                    || effective < OBSERVATIONS_PER_PARAMETER * (freeWithoutPrior + 1))) {
                 cf.heldReason.put(p.name(), "too few runs to fit it as well (" + used.size() + " runs)");
                 continue;
             }
@@ -137,6 +141,28 @@ abstract class FreeParameters extends FitLikelihood {
             free.add(p);
         }
         cf.free = free;
+    }
+
+    /**
+     * The sensitivity matrix with one row per parameter that has a prior: the derivative of its prior
+     * residual, {@code 1/sd}, scaled to the parameter's range like the other rows.
+     */
+    double[][] withPriorRows(double[][] j, List<ModelParameter> cand) {
+        int extra = priorCount(cand);
+        if (extra == 0) {
+            return j;
+        }
+        double[][] out = java.util.Arrays.copyOf(j, j.length + extra);
+        int row = j.length;
+        for (int k = 0; k < cand.size(); k++) {
+            double[] ps = prior.get(cand.get(k).name());
+            if (ps != null) {
+                out[row] = new double[cand.size()];
+                out[row][k] = (uHi(cand.get(k)) - uLo(cand.get(k))) / 4 / ps[1];
+                row++;
+            }
+        }
+        return out;
     }
 
     /**

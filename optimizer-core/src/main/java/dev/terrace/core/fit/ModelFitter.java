@@ -175,6 +175,25 @@ public final class ModelFitter {
      * @return the report; never null
      */
     public static FitReport fit(LoadedCampaign lc, PluginRegistry registry, long seed, boolean intervals) {
+        return fit(lc, registry, seed, intervals, List.of());
+    }
+
+    /**
+     * Fits every model of a campaign with Gaussian priors on some parameters (earlier series, see
+     * {@link SeriesPriors}). A prior enters the likelihood as one more residual {@code (u − mean)/sd}
+     * on the fitting scale and counts as one observation when the free parameters are chosen; the
+     * bootstrap redraws its mean with the data. Priors of parameters another model determines (same
+     * meaning) or of discrete parameters are not used.
+     *
+     * @param lc        the campaign and its runs
+     * @param registry  where the campaign's models come from
+     * @param seed      seed for multi-starts and the bootstrap
+     * @param intervals false to skip the bootstrap
+     * @param priors    the priors; never null, possibly empty
+     * @return the report; never null
+     */
+    public static FitReport fit(LoadedCampaign lc, PluginRegistry registry, long seed, boolean intervals,
+                                List<ParameterPrior> priors) {
         Campaign c = lc.campaign();
         List<Run> runs = lc.runLog().runs();
         List<ModelChain.Step> fitted = new ArrayList<>();
@@ -198,6 +217,14 @@ public final class ModelFitter {
                     if (owner != null && owner.fitted() && owner.unit().equals(p.unit()) && !p.isDiscrete()) {
                         pr.shared.put(p.name(), Math.max(p.min(), Math.min(p.max(), owner.value())));
                         pr.sharedReason.put(p.name(), sharedReason(owner.modelId(), owner.parameter(), p.meaning()));
+                    }
+                }
+                for (ParameterPrior pp : priors) {
+                    if (pp.model().equals(id) && !pr.shared.containsKey(pp.parameter())
+                            && m.get().parameters().stream().anyMatch(p -> p.name().equals(pp.parameter())
+                            && !p.isDiscrete() && p.logScale() == pp.logScale())) {
+                        pr.prior.put(pp.parameter(), new double[] {pp.meanU(), pp.sdU()});
+                        pr.priorCorrelation.put(pp.parameter(), pp.correlations());
                     }
                 }
                 f = pr.solve();
@@ -319,19 +346,8 @@ public final class ModelFitter {
         return u.isEmpty() ? "" : " " + u;
     }
 
-    /** Two to three significant digits, plain or scientific. */
+    /** @see dev.terrace.core.NumberText#short3 */
     static String fmt(double v) {
-        if (!Double.isFinite(v)) {
-            return "n/a";
-        }
-        double a = Math.abs(v);
-        if (a != 0 && (a >= 1e5 || a < 1e-2)) {
-            return String.format(Locale.ROOT, "%.2e", v);
-        }
-        String s = String.format(Locale.ROOT, "%.3g", v);
-        if (s.contains(".")) {
-            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
-        }
-        return s;
+        return dev.terrace.core.NumberText.short3(v);
     }
 }

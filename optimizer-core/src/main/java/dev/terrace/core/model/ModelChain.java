@@ -51,9 +51,11 @@ public final class ModelChain {
         /** Copies the maps. */
         public Result {
             byModel = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(byModel));
-            values = values.isEmpty() ? Map.of() : Map.copyOf(values);
-            probabilities = Map.copyOf(probabilities);
-            source = Map.copyOf(source);
+            // role order (EnumMap): the same iteration order in every JVM
+            values = values.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new java.util.EnumMap<>(values));
+            probabilities = probabilities.isEmpty() ? Map.of()
+                    : java.util.Collections.unmodifiableMap(new java.util.EnumMap<>(probabilities));
+            source = source.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new java.util.EnumMap<>(source));
         }
     }
 

@@ -77,7 +77,9 @@ public final class RecipeConverter {
             } else {
                 Double v = numbers.get(p.name());
                 if (v != null && Double.isFinite(v)) {
-                    b.set(p.role(), p.unit().toCanonical(v, h));
+                    // thermocouple readings become true temperatures (campaign temperature_calibration)
+                    double offset = isHolderTemperature(p.role()) ? c.temperatureOffsetK() : 0;
+                    b.set(p.role(), p.unit().toCanonical(v, h) + offset);
                 }
             }
         }
@@ -119,6 +121,18 @@ public final class RecipeConverter {
             }
         }
         return b.build();
+    }
+
+    /**
+     * The roles read on the substrate holder's thermocouple, to which a campaign's
+     * {@linkplain dev.terrace.core.campaign.TemperatureCalibration temperature offset} applies.
+     *
+     * @param role a setting role
+     * @return true for the substrate, crystallisation and anneal temperatures
+     */
+    public static boolean isHolderTemperature(Role role) {
+        return role == Role.SUBSTRATE_TEMPERATURE || role == Role.CRYSTALLIZATION_TEMPERATURE
+                || role == Role.ANNEAL_TEMPERATURE;
     }
 
     private static Optional<Species> parseSpecies(String s) {

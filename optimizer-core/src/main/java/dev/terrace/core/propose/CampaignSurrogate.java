@@ -79,13 +79,18 @@ public final class CampaignSurrogate {
     private final List<String> notes;
     private final int runsUsed;
     private final Map<String, TrainingSubset> subsets;
+    /** Uncertainty of the fitted physics from its parameters' intervals (delta method). */
+    private final PhysicsBand band;
+    /** Per outcome, the physics' derivatives at the GP's training rows (see {@link PhysicsBand}). */
+    private final Map<String, double[][]> basisTrain;
 
     private CampaignSurrogate(LoadedCampaign lc, DesignSpace space, ModelChain chain, FitReport fit,
                               Map<String, GaussianProcess> gps, Map<String, GpLeaveOneOut> skill,
                               Map<String, Double> priorFill,
                               Map<String, Boolean> physicsPrior, Map<String, ClassModel> classModels,
                               SuccessModel success, List<DesignPoint> runPoints, List<Run> encodedRuns,
-                              List<String> notes, int runsUsed, Map<String, TrainingSubset> subsets) {
+                              List<String> notes, int runsUsed, Map<String, TrainingSubset> subsets,
+                              PhysicsBand band, Map<String, double[][]> basisTrain) {
         this.lc = lc;
         this.space = space;
         this.chain = chain;
@@ -101,6 +106,8 @@ public final class CampaignSurrogate {
         this.notes = notes;
         this.runsUsed = runsUsed;
         this.subsets = Map.copyOf(subsets);
+        this.band = band;
+        this.basisTrain = basisTrain;
     }
 
     /**
@@ -202,7 +209,14 @@ public final class CampaignSurrogate {
             notes.addAll(lc.runLog().runs().size() > PHYSICS_FIT_RUNS
                     ? List.of("growth models fitted on " + PHYSICS_FIT_RUNS + " of the " + lc.runLog().runs().size()
                     + " runs (a fixed random subset)") : List.of());
-            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false);
+            // earlier series of the campaign's priors enter the proposals' fit as they enter 'terrace fit'
+            List<dev.terrace.core.fit.ParameterPrior> priors = List.of();
+            try {
+                priors = dev.terrace.core.fit.SeriesPriors.load(c, registry, seed).priors();
+            } catch (dev.terrace.core.InputException | java.io.IOException e) {
+                notes.add("the earlier series named under priors: were not used: " + e.getMessage());
+            }
+            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false, priors);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
                 if (!f.message().isEmpty()) {
@@ -228,6 +242,8 @@ public final class CampaignSurrogate {
         }
         Map<String, GaussianProcess> gps = new LinkedHashMap<>();
         Map<String, GpLeaveOneOut> skill = new LinkedHashMap<>();
+        PhysicsBand band = PhysicsBand.of(chain, fit);
+        Map<String, double[][]> basis = new LinkedHashMap<>();
         Map<String, java.util.concurrent.Callable<OutcomeGp>> gpTasks = new LinkedHashMap<>();
         Map<String, java.util.concurrent.Callable<ClassModel>> classTasks = new LinkedHashMap<>();
         Map<String, Double> fill = new LinkedHashMap<>();
@@ -315,6 +331,9 @@ public final class CampaignSurrogate {
                     gs = gs.withNoiseFloor(Math.max(gs.noiseFloor(), Math.min(floor, 0.5)));
                 }
             }
+            if (ppIsPhysics(pp) && !band.isEmpty()) {
+                basis.put(o.name(), band.jacobian(c, o, conditionsAt(c, space, xs), predictAt(c, space, chain, xs)));
+            }
             final GpSettings gsf = gs;
             final double[] ppf = pp;
             final double[] yyf = yy;
@@ -390,7 +409,29 @@ public final class CampaignSurrogate {
             pool.shutdownNow();
         }
         return new CampaignSurrogate(lc, space, chain, fit, gps, skill, fill, physics, cms, sm, pts, runs, notes, used,
-                subsets);
+                subsets, band, basis);
+    }
+
+    /** @return true when a prior-mean array holds the physics (not null) */
+    private static boolean ppIsPhysics(double[] pp) {
+        return pp != null;
+    }
+
+    private static List<Conditions> conditionsAt(Campaign c, DesignSpace space, List<DesignPoint> pts) {
+        List<Conditions> out = new ArrayList<>(pts.size());
+        for (DesignPoint p : pts) {
+            out.add(RecipeConverter.conditions(c, space.numbers(p), space.categories(p)));
+        }
+        return out;
+    }
+
+    private static List<ModelChain.Result> predictAt(Campaign c, DesignSpace space, ModelChain chain,
+                                                     List<DesignPoint> pts) {
+        List<ModelChain.Result> out = new ArrayList<>(pts.size());
+        for (Conditions k : conditionsAt(c, space, pts)) {
+            out.add(chain.predict(k));
+        }
+        return out;
     }
 
     /** Threads used to fit the independent surrogates (the machines Terrace targets have 2 cores). */
@@ -476,11 +517,13 @@ public final class CampaignSurrogate {
     public Evaluation evaluate(List<DesignPoint> pts) {
         Campaign c = lc.campaign();
         List<ModelChain.Result> phys = new ArrayList<>(pts.size());
+        List<Conditions> conds = new ArrayList<>(pts.size());
         List<List<String>> validity = new ArrayList<>(pts.size());
         for (DesignPoint p : pts) {
             Conditions cond = RecipeConverter.conditions(c, space.numbers(p), space.categories(p));
             ModelChain.Result r = chain.predict(cond);
             phys.add(r);
+            conds.add(cond);
             List<String> v = new ArrayList<>();
             for (Map.Entry<String, Prediction> e : r.byModel().entrySet()) {
                 if (!e.getValue().validity().valid()) {
@@ -492,6 +535,7 @@ public final class CampaignSurrogate {
         Map<String, double[]> mean = new LinkedHashMap<>();
         Map<String, double[]> sdl = new LinkedHashMap<>();
         Map<String, Double> noise = new LinkedHashMap<>();
+
         for (OutcomeSpec o : c.outcomes()) {
             if (o.isClass()) {
                 continue;
@@ -524,11 +568,21 @@ public final class CampaignSurrogate {
                     prior[i] = f;
                 }
             }
-            Predictive pr = gp.predict(pts, physicsPrior.get(o.name()) ? prior : null);
+            double[][] ht = basisTrain.get(o.name());
+            GaussianProcess.Basis basis = ht == null || !physicsPrior.get(o.name()) ? null
+                    : new GaussianProcess.Basis(ht, band.jacobian(c, o, conds, phys), band.sigma());
+            Predictive pr = gp.predict(pts, physicsPrior.get(o.name()) ? prior : null, basis);
             mean.put(o.name(), pr.mean());
-            sdl.put(o.name(), pr.sdLatent());
             GpLeaveOneOut loo = skill.get(o.name());
-            noise.put(o.name(), loo.hasSkill() ? pr.noiseSd() : Math.max(pr.noiseSd(), loo.noSkillSpread()));
+            // leave-one-out calibration of the spread (GpLeaveOneOut#sdFactor), then the no-skill floor
+            double k = loo.sdFactor();
+            double[] sl = pr.sdLatent().clone();
+            for (int i = 0; i < sl.length; i++) {
+                sl[i] *= k;
+            }
+            sdl.put(o.name(), sl);
+            double ns = k * pr.noiseSd();
+            noise.put(o.name(), loo.hasSkill() ? ns : Math.max(ns, loo.noSkillSpread()));
         }
         Map<String, double[][]> cls = new LinkedHashMap<>();
         for (OutcomeSpec o : c.outcomes()) {
@@ -568,7 +622,7 @@ public final class CampaignSurrogate {
                     physicsPrior.get(o.name()) ? prior : Double.NaN));
         }
         return new CampaignSurrogate(lc, space, chain, fit, next, skill, priorFill, physicsPrior, classModels, success,
-                runPoints, encodedRuns, notes, runsUsed, subsets);
+                runPoints, encodedRuns, notes, runsUsed, subsets, band, basisTrain);
     }
 
     /** @return the campaign; never null */

@@ -334,7 +334,87 @@ public final class GaussianProcess {
      * @throws IllegalArgumentException on mismatched or non-finite input
      */
     public Predictive predict(List<DesignPoint> x, double[] priorMean) {
+        return predict(x, priorMean, null);
+    }
+
+    /**
+     * Prior-mean coefficients that are themselves uncertain: the prior mean is the fitted physics,
+     * and its parameters carry a covariance B. To first order the physics at x moves by h(x)&#7488;&beta;
+     * with h the derivative with respect to the parameters and &beta; ~ N(0, B); the GP then has
+     * explicit basis functions h with a Gaussian prior on their coefficients (Rasmussen and
+     * Williams 2006, sec. 2.7, eqs. 2.41-2.42; O'Hagan 1978), and the predictive variance gains
+     * r&#7488;(B&#8315;&sup1; + HK&#8315;&sup1;H&#7488;)&#8315;&sup1;r with r = h(x*) &minus; HK&#8315;&sup1;k*: large where the runs
+     * do not tie the physics down, small near them. The mean is left at the fitted physics (the
+     * coefficients' posterior mean is about 0 because the parameters were fitted to these runs).
+     *
+     * @param hTrain derivatives at the training rows, in the outcome's fitting units (rows beyond
+     *               its length, such as censored sites or fantasies, count as 0: no information)
+     * @param hQuery derivatives at the query points, one row per point
+     * @param b      the parameters' covariance, d &times; d, symmetric positive semi-definite
+     */
+    public record Basis(double[][] hTrain, double[][] hQuery, double[][] b) {
+        /** Checks the shapes. */
+        public Basis {
+            java.util.Objects.requireNonNull(hTrain, "hTrain");
+            java.util.Objects.requireNonNull(hQuery, "hQuery");
+            java.util.Objects.requireNonNull(b, "b");
+        }
+    }
+
+    /**
+     * As {@link #predict(List, double[])}, with the variance of uncertain prior-mean coefficients
+     * ({@link Basis}) added to the latent variance.
+     *
+     * @param x         the query points
+     * @param priorMean prior mean at the query points when the GP uses one; ignored otherwise
+     * @param basis     the uncertain coefficients, or null for none
+     * @return the predictions; never null
+     */
+    public Predictive predict(List<DesignPoint> x, double[] priorMean, Basis basis) {
         int m = x.size();
+        int d = basis == null ? 0 : basis.b().length;
+        double[] g = null;          // L^-1 H^T, n x d column-major, standardised units
+        double[][] cMat = null;     // (B^-1 + H K^-1 H^T)^-1 = S (I + S M S)^-1 S, S = B^(1/2)
+        if (d > 0) {
+            if (basis.hQuery().length != m) {
+                throw new IllegalArgumentException(m + " query points but " + basis.hQuery().length + " basis rows");
+            }
+            int n0 = z.length;
+            g = new double[n0 * d];
+            for (int r = 0; r < Math.min(n0, basis.hTrain().length); r++) {
+                for (int k = 0; k < d; k++) {
+                    g[r + k * n0] = basis.hTrain()[r][k] / scale;
+                }
+            }
+            factor.lowerSolveInPlace(g, d);
+            double[][] mm = new double[d][d];
+            for (int a = 0; a < d; a++) {
+                for (int c = a; c < d; c++) {
+                    double s = 0;
+                    for (int r = 0; r < n0; r++) {
+                        s += g[r + a * n0] * g[r + c * n0];
+                    }
+                    mm[a][c] = s;
+                    mm[c][a] = s;
+                }
+            }
+            org.apache.commons.math3.linear.EigenDecomposition eb = new org.apache.commons.math3.linear.EigenDecomposition(
+                    new org.apache.commons.math3.linear.Array2DRowRealMatrix(basis.b()));
+            double[] lam = eb.getRealEigenvalues();
+            org.apache.commons.math3.linear.RealMatrix v = eb.getV();
+            double[] sq = new double[d];
+            for (int k = 0; k < d; k++) {
+                sq[k] = Math.sqrt(Math.max(lam[k], 0));
+            }
+            org.apache.commons.math3.linear.RealMatrix sRoot = v.multiply(
+                    new org.apache.commons.math3.linear.DiagonalMatrix(sq)).multiply(v.transpose());
+            org.apache.commons.math3.linear.RealMatrix inner = sRoot.multiply(
+                    new org.apache.commons.math3.linear.Array2DRowRealMatrix(mm)).multiply(sRoot);
+            inner = inner.add(org.apache.commons.math3.linear.MatrixUtils.createRealIdentityMatrix(d));
+            org.apache.commons.math3.linear.RealMatrix inv = new org.apache.commons.math3.linear.LUDecomposition(inner)
+                    .getSolver().getInverse();
+            cMat = sRoot.multiply(inv).multiply(sRoot).getData();
+        }
         double[] pm = priorAtQueries(priorMean, m);
         double[] mean = new double[m];
         double[] sd = new double[m];
@@ -366,6 +446,28 @@ public final class GaussianProcess {
                 }
                 if (!Double.isFinite(mu) || Double.isNaN(var)) {
                     throw new IllegalStateException("GP prediction is not finite");
+                }
+                if (d > 0) {
+                    double[] rr = new double[d];
+                    double[] hq = basis.hQuery()[start + i];
+                    for (int k = 0; k < d; k++) {
+                        double s = hq[k] / scale;
+                        for (int r = 0; r < n; r++) {
+                            s -= g[r + k * n] * ks[r + i * n];
+                        }
+                        rr[k] = s;
+                    }
+                    double extra = 0;
+                    for (int a = 0; a < d; a++) {
+                        double row = 0;
+                        for (int c = 0; c < d; c++) {
+                            row += cMat[a][c] * rr[c];
+                        }
+                        extra += rr[a] * row;
+                    }
+                    if (extra > 0 && Double.isFinite(extra)) {
+                        var += extra;
+                    }
                 }
                 mean[start + i] = (pm == null ? 0 : pm[start + i]) + offset + scale * mu;
                 sd[start + i] = scale * Math.sqrt(Math.max(var, MIN_LATENT_VARIANCE));

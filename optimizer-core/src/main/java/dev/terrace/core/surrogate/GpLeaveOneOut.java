@@ -15,10 +15,22 @@ package dev.terrace.core.surrogate;
  * @param runs       runs scored, &ge; 1
  * @param rmse       root mean squared leave-one-out error, finite, &ge; 0 (0 when it could not be computed)
  * @param q2         predictive Q&sup2;, at most 1; NaN when the outcomes have no spread
- * @param observedSd sample standard deviation (n &minus; 1) of the scored outcomes, &ge; 0; 0 for one run
+ * <p>Calibration of the spread: if the predictive variances were right, the leave-one-out errors
+ * divided by their predictive sds would have unit mean square. Scaling every predictive variance
+ * (latent and noise) by a factor c changes no leave-one-out mean and multiplies every
+ * leave-one-out variance by c, and the c that maximises the leave-one-out log predictive probability
+ * (Rasmussen and Williams 2006, sec. 5.4.2, eq. 5.10; Sundararajan and Keerthi, Neural Computation
+ * 13, 1103 (2001)) is the mean squared standardized error, {@link #varianceScale}.
+ *
+ * @param runs          runs scored, &ge; 1
+ * @param rmse          root mean squared leave-one-out error, finite, &ge; 0 (0 when it could not be computed)
+ * @param q2            predictive Q&sup2;, at most 1; NaN when the outcomes have no spread
+ * @param observedSd    sample standard deviation (n &minus; 1) of the scored outcomes, &ge; 0; 0 for one run
+ * @param varianceScale mean of (error&sup2; / leave-one-out variance) over the scored runs, &gt; 0;
+ *                      NaN when it could not be computed
  * @since 0.2
  */
-public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd) {
+public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd, double varianceScale) {
 
     /**
      * Fewest scored runs, 5, for which {@link #hasSkill} passes judgement: below that a
@@ -40,6 +52,9 @@ public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd)
         if (!(observedSd >= 0) || !Double.isFinite(observedSd)) {
             throw new IllegalArgumentException("observed sd must be finite and >= 0: " + observedSd);
         }
+        if (!Double.isNaN(varianceScale) && !(varianceScale >= 0 && varianceScale < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("variance scale must be finite and >= 0: " + varianceScale);
+        }
     }
 
     /**
@@ -58,18 +73,22 @@ public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd)
         }
         double ss = 0;
         double press = 0;
+        double z2 = 0;
         boolean finite = true;
         for (int i = 0; i < n; i++) {
             ss += (y[i] - mean) * (y[i] - mean);
             press += error[i] * error[i];
+            z2 += error[i] * error[i] / variance[i];
             finite &= Double.isFinite(error[i]) && variance[i] > 0 && Double.isFinite(variance[i]);
         }
         if (!finite || !Double.isFinite(press)) {
             // a degenerate factor: no judgement rather than a failed proposal
-            return new GpLeaveOneOut(n, 0, Double.NaN, n > 1 ? Math.sqrt(ss / (n - 1)) : 0);
+            return new GpLeaveOneOut(n, 0, Double.NaN, n > 1 ? Math.sqrt(ss / (n - 1)) : 0, Double.NaN);
         }
         double q2 = ss > 0 ? Math.min(1, 1 - press / ss) : Double.NaN;
-        return new GpLeaveOneOut(n, Math.sqrt(press / n), q2, n > 1 ? Math.sqrt(ss / (n - 1)) : 0);
+        double c = z2 / n;
+        return new GpLeaveOneOut(n, Math.sqrt(press / n), q2, n > 1 ? Math.sqrt(ss / (n - 1)) : 0,
+                Double.isFinite(c) ? c : Double.NaN);
     }
 
     /**
@@ -91,5 +110,21 @@ public record GpLeaveOneOut(int runs, double rmse, double q2, double observedSd)
      */
     public double noSkillSpread() {
         return Math.max(rmse, observedSd);
+    }
+
+    /**
+     * The factor on the predictive sd (latent and noise) of new predictions: the square root of
+     * {@link #varianceScale} when at least {@link #MIN_RUNS} runs were scored and it exceeds 1, else
+     * 1. Only widening: below {@link #MIN_RUNS} errors the mean square is too noisy to narrow
+     * intervals on, and a too-wide interval costs a grower less than a too-narrow one (a project
+     * choice).
+     *
+     * @return the factor, &ge; 1
+     */
+    public double sdFactor() {
+        if (runs < MIN_RUNS || !(varianceScale > 1)) {
+            return 1;
+        }
+        return Math.sqrt(varianceScale);
     }
 }

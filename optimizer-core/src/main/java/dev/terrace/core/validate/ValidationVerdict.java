@@ -250,19 +250,8 @@ final class ValidationVerdict {
         return (v >= 0 ? "+" : "") + fmt(v);
     }
 
-    /** Two to three significant digits, plain or scientific; "n/a" for a non-finite value. */
+    /** @see dev.terrace.core.NumberText#short3 */
     static String fmt(double v) {
-        if (!Double.isFinite(v)) {
-            return "n/a";
-        }
-        double a = Math.abs(v);
-        if (a != 0 && (a >= 1e5 || a < 1e-2)) {
-            return String.format(Locale.ROOT, "%.2e", v);
-        }
-        String s = String.format(Locale.ROOT, "%.3g", v);
-        if (s.contains(".")) {
-            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
-        }
-        return s;
+        return dev.terrace.core.NumberText.short3(v);
     }
 }

@@ -2,7 +2,7 @@ package dev.terrace.cli;
 
 import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
-import dev.terrace.demo.DemoCampaign;
+import dev.terrace.demo.DemoSeries;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -37,10 +37,18 @@ final class DemoCommand implements Callable<Integer> {
                     + DEFAULT_DIR + "-N).")
     Path dir;
 
+    @Option(names = "--series", paramLabel = "NAME",
+            description = "Which bundled demo to run: ga-dots (GaAs droplet-epitaxy dots, the default) or "
+                    + "sk-dots (InAs/GaAs strained-layer dots). Both are invented data.")
+    String series = DemoSeries.GA_DOTS.key();
+
     @Override
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        DemoSeries chosen = DemoSeries.byKey(series).orElseThrow(() -> new CommandLine.ParameterException(
+                spec.commandLine(), "unknown demo series '" + series + "'; expected one of: "
+                        + String.join(", ", DemoSeries.keys())));
         Path target = dir;
         if (target == null) {
             target = Path.of(DEFAULT_DIR);
@@ -51,9 +59,9 @@ final class DemoCommand implements Callable<Integer> {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     target + " exists already; the demo never writes into an existing folder");
         }
-        Path campaign = DemoCampaign.copyTo(target);
+        Path campaign = chosen.copyTo(target);
         out.println("Demo campaign copied to " + target.toAbsolutePath().normalize());
-        out.println("  (" + DemoCampaign.SCENARIO + ")");
+        out.println("  (" + chosen.scenario() + ")");
         out.println();
         out.println("== terrace check " + campaign);
         dev.terrace.core.plugins.PluginRegistry reg = Registries.load(global, err);

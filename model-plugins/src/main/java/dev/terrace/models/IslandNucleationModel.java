@@ -23,7 +23,7 @@ import java.util.Set;
  * <p><b>Equations.</b> The density follows {@link NucleationLaw}:
  * <pre>
  *   N = eta · N0 · (F/D)^chi · exp( E_i / ((i + alpha) · k_B · T) ),   chi = i/(i + alpha)
- *   D = (nu0/4) · exp( −(E_d + shift · θ_s) / (k_B · T) )
+ *   D = (nu0/4) · exp( −(E_d + shift · min(θ_s / 1 ML, 1)) / (k_B · T) )
  * </pre>
  * with {@code T} = {@link Role#SUBSTRATE_TEMPERATURE}, {@code F} = {@link Role#DEPOSITION_RATE} in ML/s,
  * {@code N0} = {@link Surface#sitesPerCm2()}, {@code θ_s} = {@link Role#SURFACTANT_COVERAGE} (0 when absent)
@@ -54,8 +54,10 @@ import java.util.Set;
  * is more than an order of magnitude above the 1.1e11 cm^-2 measured there. Fit the prefactor or the barrier to the lab's
  * densities before trusting absolute values.
  *
- * <p><b>Surfactant sign.</b> A positive {@code surfactant_barrier_shift} raises the effective barrier,
- * lowers {@code D} and so <em>raises</em> the density; a negative one lowers it.
+ * <p><b>Surfactant.</b> {@code surfactant_shift} (eV) is the change of the barrier at a full surfactant
+ * layer; the change grows linearly with {@link Role#SURFACTANT_COVERAGE} up to 1 ML and stays constant
+ * above (see {@link NucleationLaw}). A positive shift raises the effective barrier, lowers {@code D} and so
+ * <em>raises</em> the density; a negative one lowers it. Without the role the law is unchanged.
  *
  * <p><b>Chaining.</b> The core feeds the predicted {@link Role#ISLAND_DENSITY} into later models of the
  * campaign's {@code models:} list, for example {@code droplet-crystallization}. That model also predicts
@@ -199,6 +201,7 @@ public final class IslandNucleationModel implements GrowthModel {
 
         Map<Role, Double> values = new EnumMap<>(Role.class);
         values.put(Role.ISLAND_DENSITY, density);
+        surfactantNote(law, surfactant).ifPresent(notes::add);
         notes.add("mean island spacing about " + ModelSupport.sig3(ModelSupport.NM_PER_CM / Math.sqrt(density))
                 + " nm");
 
@@ -257,6 +260,23 @@ public final class IslandNucleationModel implements GrowthModel {
         double coverage = conditions.value(Role.COVERAGE).getAsDouble();
         return new OptionalDiameter(dropletBaseDiameterNm(coverage, density, surface, contactAngleDeg),
                 Optional.empty());
+    }
+
+    /**
+     * A remark on the surfactant's effect on the diffusion barrier, when it has one.
+     *
+     * @param law          the nucleation law
+     * @param surfactantMl surfactant pre-coverage in ML
+     * @return the remark, empty when the surfactant changes nothing
+     */
+    static Optional<String> surfactantNote(NucleationLaw law, double surfactantMl) {
+        double change = law.rawEffectiveBarrierEv(surfactantMl) - law.diffusionBarrierEv();
+        if (change == 0) {
+            return Optional.empty();
+        }
+        return Optional.of("surfactant (" + ModelSupport.sig3(surfactantMl) + " ML) changes the adatom diffusion "
+                + "barrier by " + (change > 0 ? "+" : "") + ModelSupport.sig3(change) + " eV"
+                + (surfactantMl >= NucleationLaw.SURFACTANT_SATURATION_ML ? " (full layer: the whole shift)" : ""));
     }
 
     /** A diameter and a remark, each possibly absent. */

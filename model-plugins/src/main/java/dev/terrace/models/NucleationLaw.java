@@ -27,10 +27,17 @@ import java.util.List;
  * lowers {@code N} by {@code 4^(−chi)} (0.630 for i = 1, 2D), so a fitted attempt frequency is only
  * meaningful together with this convention.
  *
- * <p><b>Surfactant.</b> A surfactant pre-coverage {@code θ_s} (ML) shifts the barrier linearly:
- * {@code E_d,eff = E_d + shift · θ_s}. A positive shift lowers {@code D} and raises {@code N}; a negative
- * shift (faster adatoms) lowers {@code N}. No general published value of the shift exists; it is fitted
- * from a lab's runs. The effective barrier is floored at 0 eV (hopping at the attempt frequency).
+ * <p><b>Surfactant.</b> A surfactant pre-coverage {@code θ_s} (ML) shifts the barrier in proportion to the
+ * covered fraction of the surface and saturates at a full layer:
+ * {@code E_d,eff = E_d + shift · min(θ_s / 1 ML, 1)}, with {@code shift} the change at a full layer (eV).
+ * The saturation follows the picture of surfactant-mediated epitaxy, in which the surfactant forms one
+ * layer that floats on the growth front and excess surfactant does not change it further (Copel, Reuter,
+ * Kaxiras, Tromp, PRL 63, 632 (1989), from memory). The linear rise below a full layer is a mean-field
+ * average of bare and covered sites (Terrace choice). The sign is free: some surfactants lengthen the
+ * adatom diffusion length and others shorten it (Massies and Grandjean, PRB 48, 8502 (1993): Pb increases
+ * it, Te decreases it). A positive shift lowers {@code D} and raises {@code N}; a negative shift (faster
+ * adatoms) lowers {@code N}. No general published value of the shift exists; it is fitted from a lab's
+ * runs. The effective barrier is floored at 0 eV (hopping at the attempt frequency).
  *
  * <p><b>Assumptions.</b> Complete condensation (no re-evaporation of adatoms), immobile stable clusters,
  * isotropic diffusion on one kind of site, saturation regime (coverage of order 0.1 ML or more). A mobile
@@ -42,12 +49,12 @@ import java.util.List;
  * @param criticalSize           critical cluster size {@code i}, 1 to 3
  * @param bindingEnergyEv        binding energy {@code E_i} of the critical cluster in eV; ignored for i = 1
  * @param prefactor              dimensionless prefactor {@code eta}; positive
- * @param surfactantShiftEvPerMl barrier shift per ML of surfactant, eV/ML
+ * @param surfactantShiftEv      barrier shift at a full surfactant layer, eV
  * @param alpha                  {@link #ALPHA_2D} or {@link #ALPHA_3D}
  * @since 0.1
  */
 public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz, int criticalSize,
-                            double bindingEnergyEv, double prefactor, double surfactantShiftEvPerMl,
+                            double bindingEnergyEv, double prefactor, double surfactantShiftEv,
                             double alpha) {
 
     /** Boltzmann constant in eV/K, CODATA 2018 (exact in the 2019 SI). */
@@ -83,8 +90,20 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
      */
     public static final double DEFAULT_PREFACTOR = 0.25;
 
-    /** Default surfactant barrier shift, 0 eV/ML: no general published value exists; fitted from the lab's runs. */
+    /** Default surfactant barrier shift, 0 eV: no general published value exists; fitted from the lab's runs. */
     public static final double DEFAULT_SURFACTANT_BARRIER_SHIFT = 0;
+
+    /**
+     * Surfactant coverage at which its effect on the barrier saturates, 1 ML: one floating layer (Copel et
+     * al., PRL 63, 632 (1989), from memory).
+     */
+    public static final double SURFACTANT_SATURATION_ML = 1.0;
+
+    /**
+     * Bounds of the surfactant shift, ±0.5 eV: of the order of the adatom barriers themselves (0.1-1 eV),
+     * so the fit can say either sign without reaching a bound (Terrace choice).
+     */
+    public static final double SURFACTANT_SHIFT_BOUND_EV = 0.5;
 
     /**
      * Smallest hop-to-deposition ratio {@code D/F} for which predictions are marked valid, 1e3. The law is
@@ -104,13 +123,20 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
     public static final String BINDING_ENERGY = "binding_energy";
     /** Parameter name of {@code eta}. */
     public static final String PREFACTOR = "prefactor";
-    /** Parameter name of the surfactant barrier shift. */
-    public static final String SURFACTANT_BARRIER_SHIFT = "surfactant_barrier_shift";
+    /** Parameter name of the surfactant barrier shift at a full layer, {@code surfactant_shift} (eV). */
+    public static final String SURFACTANT_SHIFT = "surfactant_shift";
+    /** The same parameter name as {@link #SURFACTANT_SHIFT}, kept for callers of earlier versions. */
+    public static final String SURFACTANT_BARRIER_SHIFT = SURFACTANT_SHIFT;
+
+    /**
+     * Shared meaning of the surfactant shift: the models of one chain that use the surfactant fit one value.
+     */
+    public static final String MEANING_SURFACTANT_SHIFT = "surfactant_diffusion_shift";
 
     /** Checks the invariants. */
     public NucleationLaw {
         if (!Double.isFinite(diffusionBarrierEv) || !Double.isFinite(bindingEnergyEv)
-                || !Double.isFinite(surfactantShiftEvPerMl)) {
+                || !Double.isFinite(surfactantShiftEv)) {
             throw new IllegalArgumentException("energies must be finite");
         }
         if (!(attemptFrequencyHz > 0) || !(prefactor > 0) || Double.isInfinite(attemptFrequencyHz)
@@ -136,7 +162,7 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
     public static NucleationLaw from(ParameterValues values, double alpha) {
         return new NucleationLaw(values.get(DIFFUSION_BARRIER), values.get(ATTEMPT_FREQUENCY),
                 (int) Math.round(values.get(CRITICAL_SIZE)), values.get(BINDING_ENERGY), values.get(PREFACTOR),
-                values.get(SURFACTANT_BARRIER_SHIFT), alpha);
+                values.get(SURFACTANT_SHIFT), alpha);
     }
 
     /** Shared meaning of the adatom diffusion barrier: one value across the models of a chain. */
@@ -170,10 +196,13 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
                         "Bales & Chrzan, PRB 50, 6057 (1994); Amar, Family, Lam, PRB 50, 8781 (1994): about "
                                 + "0.2-0.3 for i = 1 (value from memory)",
                         "dimensionless prefactor eta of the saturation density"),
-                ModelParameter.continuous(SURFACTANT_BARRIER_SHIFT, "eV/ML", DEFAULT_SURFACTANT_BARRIER_SHIFT,
-                        -0.5, 0.5, false,
-                        "no general published value exists; fitted from the lab's runs (0 = no effect)",
-                        "change of the diffusion barrier per ML of surfactant; negative favours step flow"));
+                ModelParameter.continuous(SURFACTANT_SHIFT, "eV", DEFAULT_SURFACTANT_BARRIER_SHIFT,
+                        -SURFACTANT_SHIFT_BOUND_EV, SURFACTANT_SHIFT_BOUND_EV, false,
+                        "no general published value exists; fitted from the lab's runs (0 = no effect); either sign "
+                                + "is seen (Massies and Grandjean, PRB 48, 8502 (1993)); saturates at one layer "
+                                + "(Copel et al., PRL 63, 632 (1989), from memory)",
+                        "change of the diffusion barrier at a full surfactant layer (linear below 1 ML, constant "
+                                + "above); negative favours step flow").withMeaning(MEANING_SURFACTANT_SHIFT));
     }
 
     /**
@@ -198,11 +227,25 @@ public record NucleationLaw(double diffusionBarrierEv, double attemptFrequencyHz
     /**
      * The diffusion barrier after the surfactant shift, before flooring.
      *
-     * @param surfactantMl surfactant pre-coverage in ML
-     * @return {@code E_d + shift·θ_s} in eV
+     * @param surfactantMl surfactant pre-coverage in ML, not negative
+     * @return {@code E_d + shift·min(θ_s/1 ML, 1)} in eV
      */
     public double rawEffectiveBarrierEv(double surfactantMl) {
-        return diffusionBarrierEv + surfactantShiftEvPerMl * surfactantMl;
+        return diffusionBarrierEv + surfactantShiftEv * surfactantFraction(surfactantMl);
+    }
+
+    /**
+     * The part of the full-layer shift that a surfactant pre-coverage applies: linear up to
+     * {@link #SURFACTANT_SATURATION_ML}, then 1.
+     *
+     * @param surfactantMl surfactant pre-coverage in ML; zero or negative gives 0
+     * @return a fraction in [0, 1]
+     */
+    public static double surfactantFraction(double surfactantMl) {
+        if (!(surfactantMl > 0)) {
+            return 0.0;
+        }
+        return Math.min(surfactantMl / SURFACTANT_SATURATION_ML, 1.0);
     }
 
     /**

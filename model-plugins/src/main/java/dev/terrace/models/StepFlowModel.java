@@ -39,8 +39,10 @@ import java.util.Set;
  * A larger miscut or a lower rate lowers it, as seen on vicinal GaAs(001) by Shitara et al., PRB 46, 6815
  * (1992) (qualitative check).
  *
- * <p><b>Surfactant sign.</b> A positive {@code surfactant_barrier_shift} slows adatoms, raises {@code N},
- * shortens {@code l} and pushes toward islands (and raises the transition temperature). Growers use
+ * <p><b>Surfactant.</b> {@code surfactant_shift} (eV) is the change of the diffusion barrier at a full
+ * surfactant layer, reached linearly at 1 ML of {@link Role#SURFACTANT_COVERAGE} and constant above (see
+ * {@link NucleationLaw}). A positive shift slows adatoms, raises {@code N}, shortens {@code l} and pushes
+ * toward islands (and raises the transition temperature); a negative one lowers it. Growers use
  * surfactants to favour step flow, so a fitted shift is often negative; the bounds allow both signs.
  *
  * <p><b>Assumptions.</b> Isotropic diffusion, no step-edge (Ehrlich–Schwoebel) barrier, steps as perfect
@@ -205,6 +207,7 @@ public final class StepFlowModel implements GrowthModel {
             notes.add("terrace width " + ModelSupport.sig3(Math.exp(lnWidth)) + " nm, nucleation length "
                     + ModelSupport.sig3(Math.exp(lnLength)) + " nm");
         }
+        IslandNucleationModel.surfactantNote(law, surfactant).ifPresent(notes::add);
         notes.add(transitionTemperature(rate, miscut, surfactant, surface, parameters).note());
 
         Map<String, Double> probabilities = new LinkedHashMap<>();

@@ -9,15 +9,15 @@ import java.util.stream.Collectors;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
-/** The module registers exactly its three growth models, under their campaign-format ids. */
+/** The module registers exactly its four growth models, under their campaign-format ids. */
 class ServiceRegistrationTest {
 
     @Test
-    void serviceLoaderFindsTheThreeModelsOfThisModule() {
+    void serviceLoaderFindsTheFourModelsOfThisModule() {
         Set<String> ids = ServiceLoader.load(GrowthModel.class).stream()
                 .filter(p -> p.type().getPackageName().equals("dev.terrace.models"))
                 .map(p -> p.get().id()).collect(Collectors.toSet());
         // ids are part of the campaign format and must never change
-        assertEquals(Set.of("island-nucleation", "step-flow", "droplet-crystallization"), ids);
+        assertEquals(Set.of("island-nucleation", "step-flow", "droplet-crystallization", "critical-thickness"), ids);
     }
 }

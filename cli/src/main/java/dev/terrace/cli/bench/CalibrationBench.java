@@ -224,6 +224,25 @@ public final class CalibrationBench {
         List<Record> tops = rs.stream().filter(Record::first).toList();
         sb.append(String.format(Locale.ROOT, "%nweighted mean absolute calibration error  %.3f  (top proposals only: %.3f)%n",
                 weightedCalibrationError(rs), weightedCalibrationError(tops)));
+        // runs to a reliable top recipe in the same loops (the sample-efficiency benchmark's measure)
+        java.util.TreeMap<Long, Integer> reliable = new java.util.TreeMap<>();
+        for (Record r : rs) {
+            reliable.putIfAbsent(r.seed(), BUDGET + 1);
+            if (r.first() && r.truth() >= SampleEfficiency.RELIABLE && r.runsBefore() < reliable.get(r.seed())) {
+                reliable.put(r.seed(), r.runsBefore());
+            }
+        }
+        List<Integer> rl = new ArrayList<>(reliable.values());
+        java.util.Collections.sort(rl);
+        long never = rl.stream().filter(v -> v > BUDGET).count();
+        if (!rl.isEmpty()) {
+            double median = rl.size() % 2 == 1 ? rl.get(rl.size() / 2)
+                    : 0.5 * (rl.get(rl.size() / 2 - 1) + rl.get(rl.size() / 2));
+            sb.append(String.format(Locale.ROOT, "runs until the top proposal is reliable (true P(in spec) >= %.1f):"
+                            + " median %s over %d seeds%s%n", SampleEfficiency.RELIABLE,
+                    median > BUDGET ? "> " + (BUDGET - 1) : String.format(Locale.ROOT, "%.1f", median), rl.size(),
+                    never == 0 ? "" : " (" + never + " never within " + (BUDGET - 1) + " runs)"));
+        }
         Coverage cov = result.coverage();
         sb.append(String.format(Locale.ROOT, "90 %% interval coverage of measured outcomes  %.3f  (%d of %d)%n",
                 cov.fraction(), cov.inside(), cov.checked()));

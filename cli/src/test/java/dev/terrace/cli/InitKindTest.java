@@ -38,6 +38,17 @@ class InitKindTest {
     }
 
     @Test
+    void modelsListsTheMaterialsTheTemplatesPointTo() {
+        CliTest.Outcome m = run("models");
+        assertEquals(0, m.code(), m.err());
+        assertTrue(m.out().contains("Materials (keys for the campaign's material section):"), m.out());
+        // the keys the three templates use (their material lines)
+        for (String key : new String[] {"GaAs", "In", "As", "Vurgaftman"}) {
+            assertTrue(m.out().contains(key), key + " in " + m.out());
+        }
+    }
+
+    @Test
     void theSkTemplateNamesItsPendingModelAndTheIdFallsBack(@TempDir Path tmp) throws Exception {
         assertTrue(InitCommand.template("sk-dots").contains("critical-thickness"));
         assertEquals("new-campaign", InitCommand.idFor(tmp.resolve("___")));

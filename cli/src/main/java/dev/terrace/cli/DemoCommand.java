@@ -17,7 +17,9 @@ import java.util.concurrent.Callable;
 /** {@code terrace demo}: copies the bundled demo campaign to a new folder and runs the job on it. */
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Run the whole job on the bundled demo campaign (invented data): copy it to a new folder,"
-                + " check it, fit its growth models, propose the next batch and write an HTML report there.",
+                + " check it, fit its growth models, propose the next batch (kept in the folder's proposal journal,"
+                + " so terrace record --proposal works there), validate the predictions, map the process window"
+                + " and write an HTML report there.",
                 "Never writes into an existing folder."})
 final class DemoCommand implements Callable<Integer> {
 
@@ -77,6 +79,10 @@ final class DemoCommand implements Callable<Integer> {
         dev.terrace.core.propose.ProposeSettings ps = dev.terrace.core.propose.ProposeSettings.defaults();
         dev.terrace.core.propose.Proposals.ProposalSet set = dev.terrace.core.propose.Proposer.propose(lc, reg, ps);
         out.print(ProposalOutput.table(set, lc.campaign()));
+        if (!set.proposals().isEmpty()) {
+            dev.terrace.core.journal.Journal.appendBatch(lc, set, Main.clock(spec).instant());
+            out.println(NextStep.afterPropose(campaign, set, true));
+        }
         Path proposals = target.resolve("proposals.json");
         dev.terrace.core.io.SafeFiles.writeNew(proposals, ProposalOutput.json(set));
         List<String> axes = ReportCommand.mapAxes(lc.campaign());

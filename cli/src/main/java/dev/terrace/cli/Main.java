@@ -158,6 +158,8 @@ public final class Main implements Runnable {
             refuseEmptyPaths(parsed);
             return new CommandLine.RunLast().execute(parsed);
         });
+        cl.getCommandSpec().usageMessage().description(firstSentenceJoined(
+                cl.getCommandSpec().usageMessage().description()));
         for (CommandLine sub : cl.getSubcommands().values()) {
             CommandLine.Model.UsageMessageSpec um = sub.getCommandSpec().usageMessage();
             um.description(firstSentenceJoined(um.description()));

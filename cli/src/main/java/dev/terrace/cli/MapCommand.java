@@ -65,9 +65,10 @@ final class MapCommand implements Callable<Integer> {
     String y;
 
     @Option(names = "--at", paramLabel = "SETTINGS", defaultValue = AT_BEST,
-            description = {"Where to hold the other settings: 'best' (the proposal with the highest predicted",
-                    "yield), 'run:ID' (a logged run's recipe) or name=value,name=value (settings left out",
-                    "come from the best proposal). Default: ${DEFAULT-VALUE}."})
+            description = "Where to hold the other settings: 'best' (the top proposal, with exactly the rounded"
+                    + " values terrace propose gives with the same seed), 'run:ID' (a logged run's recipe) or"
+                    + " name=value,name=value (settings left out come from the best proposal)."
+                    + " Default: ${DEFAULT-VALUE}.")
     String at;
 
     @Option(names = "--out", paramLabel = "FILE", description = "Write the chart to FILE.png or FILE.svg (never overwrites without --force).")
@@ -154,9 +155,22 @@ final class MapCommand implements Callable<Integer> {
         err.flush();
         CampaignSurrogate sur;
         WindowMapResult map;
+        List<Proposal> proposals = List.of();
         try (Progress bar = Progress.startPhases("map", 2, global)) {
             bar.message("fitting models and surrogates");
             sur = CampaignSurrogate.build(lc, reg, true, seed);
+            if (at.strip().equals(AT_BEST) || out != null) {
+                proposals = Proposer.propose(sur, ProposeSettings.defaults().withSeed(seed)).proposals();
+            }
+            if (at.strip().equals(AT_BEST) && !proposals.isEmpty()) {
+                // held at the top proposal's own rounded recipe, so the map and propose agree digit for digit
+                Proposal top = proposals.get(0);
+                Map<String, Object> recipe = new java.util.LinkedHashMap<>(top.recipe());
+                recipe.remove(x);
+                recipe.remove(y);
+                held = recipe;
+                heldFrom = "the top proposal " + top.id() + ", as terrace propose gives it with seed " + seed;
+            }
             bar.step().message("predicting " + grid + " x " + grid + " cells");
             map = WindowMap.compute(sur, x, y, held, grid, temperatureUncertainty, seed);
             bar.step();
@@ -165,7 +179,6 @@ final class MapCommand implements Callable<Integer> {
         o.print(summary(map, c, sur, heldFrom, held));
         o.flush();
         if (out != null) {
-            List<Proposal> proposals = Proposer.propose(sur, ProposeSettings.defaults().withSeed(seed)).proposals();
             JFreeChart chart = Plots.windowMap(map, lc.runLog().runs(), proposals, c);
             Plots.save(chart, target, Plots.DEFAULT_WIDTH, Plots.DEFAULT_HEIGHT);
             err.println("wrote " + out);
@@ -246,7 +259,8 @@ final class MapCommand implements Callable<Integer> {
             if (e.getKey().equals(m.x().name()) || e.getKey().equals(m.y().name())) {
                 continue;
             }
-            h.append(h.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(value(c, e.getKey(), e.getValue()));
+            // held values as given (a proposal's rounded recipe), not cut to a cell's 3 digits
+            h.append(h.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(heldValue(c, e.getKey(), e.getValue()));
         }
         boolean filled = !heldFrom.equals("the best proposal") && m.at().keySet().stream()
                 .anyMatch(k -> !given.containsKey(k) && !k.equals(m.x().name()) && !k.equals(m.y().name()));
@@ -255,10 +269,10 @@ final class MapCommand implements Callable<Integer> {
         sb.append(String.format(Locale.ROOT, "  window (yield >= %s): %s of the map%n", Format.num(WindowMap.WINDOW_THRESHOLD),
                 pct(m.plainWindowFraction())));
         if (m.robust()) {
-            sb.append(String.format(Locale.ROOT, "  with a %s K thermocouple error (sd) on %s together: %s of the map,"
-                            + " %s less%n", Format.num(m.temperatureUncertaintyK()),
+            sb.append(String.format(Locale.ROOT, "  with a thermocouple error of %s K (sd) on %s together: %s of the map,"
+                            + " %s%n", Format.num(m.temperatureUncertaintyK()),
                     String.join(" and ", m.temperatureSettings()), pct(m.windowFraction()),
-                    pct(Math.max(0, m.windowShrink()))));
+                    less(m.windowShrink())));
         } else if (m.temperatureUncertaintyK() == 0 && m.temperatureSettings().isEmpty()) {
             sb.append("  (the campaign has no temperature setting, so a thermocouple error cannot be mapped)\n");
         }
@@ -314,10 +328,15 @@ final class MapCommand implements Callable<Integer> {
     }
 
     private static void cautions(StringBuilder sb, Campaign c) {
-        List<String> cs = Cautions.forCampaign(c);
-        if (!cs.isEmpty()) {
-            sb.append("Caution: ").append(cs.get(0)).append(' ').append(Cautions.DEFER).append('\n');
+        sb.append(Cautions.pointer(c)).append('\n');
+    }
+
+    private static String heldValue(Campaign c, String name, Object v) {
+        if (v instanceof Double) {
+            ParameterSpec p = c.parameter(name).orElse(null);
+            return Format.setting((Double) v) + (p == null || p.isCategorical() ? "" : " " + p.unit().symbol());
         }
+        return String.valueOf(v);
     }
 
     private static String value(Campaign c, String name, Object v) {
@@ -338,5 +357,17 @@ final class MapCommand implements Callable<Integer> {
 
     private static String pct(double f) {
         return String.format(Locale.ROOT, "%.0f %%", 100 * f);
+    }
+
+    /**
+     * How much smaller the window gets, in words: "12 % less", or "the same to the nearest 1 %"
+     * when the shrink rounds to 0 % (never "0 % less").
+     *
+     * @param shrink the share of the map the window loses (negative when it grows)
+     * @return the words; never null
+     */
+    static String less(double shrink) {
+        long p = Math.round(100 * shrink);
+        return p > 0 ? p + " % less" : p < 0 ? -p + " % more" : "the same to the nearest 1 %";
     }
 }

@@ -21,7 +21,9 @@ import java.util.stream.Collectors;
 
 /** {@code terrace models}: lists the growth-model plugins found. */
 @Command(name = "models", mixinStandardHelpOptions = true,
-        description = "List the growth-model plugins found: what they need, what they predict, their parameters.")
+        description = {"List the growth-model plugins found (what they need, what they predict, their parameters)"
+                + " and the materials a campaign's material section may name.",
+                "The json format lists the plugins only."})
 final class ModelsCommand implements Callable<Integer> {
 
     @CommandLine.Spec
@@ -93,12 +95,26 @@ final class ModelsCommand implements Callable<Integer> {
                 }
                 out.println();
             }
+            printMaterials(out);
         } else {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--format must be table or json, found '" + format + "'");
         }
         out.flush();
         return r.hasFatalProblems() ? Main.EXIT_FAILED : 0;
+    }
+
+    /** The material table: the keys a campaign's {@code material:} section may use. */
+    static void printMaterials(PrintWriter out) {
+        out.println("Materials (keys for the campaign's material section):");
+        out.println("  substrate  " + String.join(", ", new java.util.TreeSet<>(
+                dev.terrace.core.material.Materials.compoundNames())) + ", or a ternary alloy such as In0.3Ga0.7As"
+                + " (lattice constant by Vegard's law)");
+        out.println("  deposit    " + String.join(", ", new java.util.TreeSet<>(
+                dev.terrace.core.material.Materials.metalNames())) + " (the droplet metal; leave it out for film growth)");
+        out.println("  group_v    " + String.join(", ", new java.util.TreeSet<>(
+                dev.terrace.core.material.Materials.groupVNames())));
+        out.println("  source     " + dev.terrace.core.material.Materials.VURGAFTMAN_2001 + " (compound lattice constants)");
     }
 
     private static String keys(Set<Role> roles) {

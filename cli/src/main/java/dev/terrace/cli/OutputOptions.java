@@ -12,14 +12,18 @@ import java.util.List;
 /** {@code --format}, {@code --out} and {@code --force} for commands that print results. */
 final class OutputOptions {
 
-    @Option(names = "--format", defaultValue = "table", description = "table, csv or json (default: ${DEFAULT-VALUE}).")
+    /** The format used when neither --format nor a known --out extension says otherwise. */
+    static final String DEFAULT_FORMAT = "table";
+
+    @Option(names = "--format", description = "table, csv or json. Without it, --out FILE picks the format from the "
+            + "extension (.csv, .json, or .txt for a table); otherwise the format is table.")
     String format;
 
     @Option(names = "--out", paramLabel = "FILE", description = "Also write the result to FILE (never overwrites without --force).")
     Path out;
 
-    @Option(names = "--force", description = {"Allow --out to replace an existing file (atomically); the campaign's own",
-            "files are never replaced."})
+    @Option(names = "--force", description = "Allow --out to replace an existing file (atomically); the campaign's"
+            + " own files are never replaced.")
     boolean force;
 
     /** The checked --out target, set by {@link #guard}. */
@@ -27,10 +31,41 @@ final class OutputOptions {
 
     /** Checks --format; --out is checked by {@link #guard} once the campaign is read. */
     void check(CommandLine.Model.CommandSpec spec) {
-        if (!format.equals("table") && !format.equals("csv") && !format.equals("json")) {
+        if (format != null && !format.equals("table") && !format.equals("csv") && !format.equals("json")) {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--format must be table, csv or json, found '" + format + "'");
         }
+    }
+
+    /**
+     * The format to print and write: an explicit --format wins; else the --out extension picks it
+     * (.csv, .json, .txt for a table, any case); else {@value #DEFAULT_FORMAT}. An --out file with
+     * another extension gets the default format and a note on standard error saying so.
+     *
+     * @param err where the note about an unknown extension goes
+     * @return table, csv or json
+     */
+    String resolve(PrintWriter err) {
+        if (format != null) {
+            return format;
+        }
+        if (out == null || out.getFileName() == null) {
+            return DEFAULT_FORMAT;
+        }
+        String name = out.getFileName().toString().toLowerCase(java.util.Locale.ROOT);
+        if (name.endsWith(".csv")) {
+            return "csv";
+        }
+        if (name.endsWith(".json")) {
+            return "json";
+        }
+        if (name.endsWith(".txt")) {
+            return "table";
+        }
+        err.println("note: --out " + out + " does not end in .csv, .json or .txt, so it gets a " + DEFAULT_FORMAT
+                + "; give --format csv or --format json to choose another format");
+        err.flush();
+        return DEFAULT_FORMAT;
     }
 
     /**

@@ -19,6 +19,9 @@ import java.util.Map;
 
 /** Renders proposals and rankings as a table, CSV or JSON. NaN is never printed (JSON null, empty cell, "-"). */
 final class ProposalOutput {
+    /** What the distance to the nearest run measures. */
+    static final String NEAREST_DISTANCE = dev.terrace.cli.report.HtmlReport.NEAREST_DISTANCE;
+
     /** Marks a recipe setting outside the range of the ok runs in the table; explained by a legend line. */
     static final String BEYOND_MARK = "*";
 
@@ -205,6 +208,9 @@ final class ProposalOutput {
         if (set.proposals().stream().anyMatch(p -> !p.beyondRuns().isEmpty())) {
             sb.append("  ").append(BEYOND_MARK).append(" = outside the range of the ok runs; the prediction there extrapolates\n");
         }
+        set.proposals().stream().filter(p -> p.nearestRun() != null).findFirst().ifPresent(p -> sb.append(String.format(
+                Locale.ROOT, "  \"nearest run %s at %.2f\" = the logged run closest to the recipe, and how far: %s%n",
+                p.nearestRun(), p.nearestDistance(), NEAREST_DISTANCE)));
         for (Proposal p : set.proposals()) {
             sb.append('\n');
             sb.append(String.format(Locale.ROOT, "#%d  %s  yield %.2f  (P run succeeds %.2f)%n", p.rank(), p.id(),

@@ -68,6 +68,34 @@ final class ProposeCommand implements Callable<Integer> {
     @Option(names = "--no-journal", description = "Do not append this batch to the campaign's proposal journal.")
     boolean noJournal;
 
+    /** Said when no ok run has been logged: nothing was fitted to the grower's chamber yet. */
+    static final String DEFAULTS_ONLY = "the run log holds no ok run yet, so these recipes come from the growth"
+            + " models' defaults alone (published or conventional parameter values, nothing fitted to your chamber);"
+            + " read the yields as rough first guesses with wide uncertainty, and expect them to change once runs"
+            + " are recorded";
+
+    /** Said when no ok run has been logged and the growth models are off or absent. */
+    static final String NOTHING_YET = "the run log holds no ok run yet and no growth model is used, so nothing is"
+            + " known about this chamber: the recipes only spread over the box, and their yields say nothing yet";
+
+    /**
+     * Adds a note when no ok run has been logged, so the grower reads the yields for what they are.
+     *
+     * @param set     the proposals
+     * @param lc      the campaign
+     * @param physics whether the growth models were used
+     * @return the proposals, with the note when it applies; never null
+     */
+    static ProposalSet withDefaultsNote(ProposalSet set, LoadedCampaign lc, boolean physics) {
+        if (!lc.runLog().okRuns().isEmpty()) {
+            return set;
+        }
+        java.util.List<String> notes = new java.util.ArrayList<>(set.notes());
+        notes.add(0, physics && !lc.campaign().models().isEmpty() ? DEFAULTS_ONLY : NOTHING_YET);
+        return new ProposalSet(set.campaignId(), set.runsUsed(), set.seed(), set.mode(), set.explore(),
+                set.proposals(), notes, set.gpSubsets());
+    }
+
     @Override
     public Integer call() throws Exception {
         output.check(spec);
@@ -91,12 +119,14 @@ final class ProposeCommand implements Callable<Integer> {
             set = Proposer.propose(sur, s);
             bar.step();
         }
+        set = withDefaultsNote(set, lc, s.usePhysics());
         if (!noJournal && !set.proposals().isEmpty()) {
             dev.terrace.core.journal.Journal.appendBatch(lc, set, clock.instant());
         }
-        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
+        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.resolve(spec.commandLine().getErr())));
         if (!global.quiet) {
             err.println(NextStep.afterPropose(campaignFile, set, !noJournal));
+            err.println(dev.terrace.core.Cautions.pointer(lc.campaign()));
         }
         return 0;
     }

@@ -51,7 +51,12 @@ final class RankCommand implements Callable<Integer> {
         PluginRegistry reg = Registries.load(global, spec.commandLine().getErr());
         LoadedCampaign lc = LoadedCampaign.open(campaignFile, reg);
         output.guard(lc, java.util.List.of(new dev.terrace.core.io.SafeFiles.Input(candidates, "candidates file")));
-        RunLog cands = CandidatesReader.read(lc.campaign(), candidates);
+        RunLog cands;
+        try {
+            cands = CandidatesReader.read(lc.campaign(), candidates);
+        } catch (dev.terrace.core.InputException e) {
+            throw new dev.terrace.core.InputException(CandidateWording.reworded(e.diagnostics()));
+        }
         refuseUnrankable(lc.campaign(), cands);
         ProposeSettings s = ProposeSettings.defaults().withSeed(seed).withPhysics(!noPhysics);
         CampaignSurrogate sur;
@@ -60,8 +65,15 @@ final class RankCommand implements Callable<Integer> {
             sur = CampaignSurrogate.build(lc, reg, s.usePhysics(), seed);
             bar.step();
         }
-        ProposalSet set = Proposer.rank(sur, cands.runs(), s);
-        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.format));
+        ProposalSet set = CandidateWording.named(Proposer.rank(sur, cands.runs(), s), lc.campaign(), cands.runs());
+        if (set.proposals().isEmpty()) {
+            throw new UsageException("--candidates " + candidates + ": no candidate can be ranked ("
+                    + String.join("; ", set.notes()) + ")");
+        }
+        output.emit(spec, ProposalOutput.render(set, lc.campaign(), output.resolve(spec.commandLine().getErr())));
+        if (!global.quiet) {
+            spec.commandLine().getErr().println(dev.terrace.core.Cautions.pointer(lc.campaign()));
+        }
         return 0;
     }
 
@@ -79,7 +91,7 @@ final class RankCommand implements Callable<Integer> {
                 return;
             }
             if (why.size() < 3) {
-                why.add(r.runId() + " has no " + String.join(", ", missing));
+                why.add("candidate " + r.runId() + " has no " + String.join(", ", missing));
             }
         }
         throw new UsageException("--candidates " + candidates + ": no candidate can be ranked, each leaves out a setting ("

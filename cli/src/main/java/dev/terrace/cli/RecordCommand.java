@@ -112,6 +112,9 @@ final class RecordCommand implements Callable<Integer> {
         }
         if (!dryRun) {
             out.println(NextStep.afterRecord(campaignFile, a, followed != null));
+            if (!global.quiet) {
+                err.println(dev.terrace.core.Cautions.pointer(c));
+            }
         }
         out.flush();
         err.flush();

@@ -98,6 +98,12 @@ final class ReportCommand implements Callable<Integer> {
             description = "Seed of every random choice; the same seed gives the same report (default: ${DEFAULT-VALUE}).")
     long seed;
 
+    @Option(names = "--map", paramLabel = "X,Y",
+            description = "Map the predicted yield over these two numeric settings (X across, Y up); repeat the "
+                    + "option for more maps. Without it the report maps the substrate temperature against the "
+                    + "group-V pressure when the campaign has both, else its first two numeric settings.")
+    List<String> maps;
+
     /** The phases of the report, in order, for the progress bar. */
     private static final List<String> PHASES = List.of("reading", "fitting models", "validating",
             "proposing", "mapping", "density plot", "writing");
@@ -115,6 +121,7 @@ final class ReportCommand implements Callable<Integer> {
             // the report never replaces the campaign file or its run log, whatever --force says
             target = SafeFiles.target(out).replacing(force).protecting(lc.inputs());
             target.check();
+            mapPairs(lc.campaign());
             for (Diagnostic d : lc.warnings()) {
                 err.println(d);
             }
@@ -151,16 +158,34 @@ final class ReportCommand implements Callable<Integer> {
         ProposalSet proposals = sur == null ? null : part(ReportContent.PROPOSALS, problems, err,
                 () -> Proposer.propose(sur, ProposeSettings.defaults().withSeed(seed)));
         bar.step().message(PHASES.get(4));
-        WindowPanel windows = null;
+        List<WindowPanel> windows = null;
         if (sur == null) {
             problems.putIfAbsent(ReportContent.WINDOWS, "No window maps: the surrogates could not be built.");
         } else {
-            windows = part(ReportContent.WINDOWS, problems, err, () -> windows(sur, proposals, problems));
+            List<List<String>> pairs = mapPairs(c);
+            if (pairs.isEmpty()) {
+                problems.put(ReportContent.WINDOWS, "No window maps: a map needs two numeric settings and this "
+                        + "campaign has " + mapAxes(c).size() + ".");
+            } else {
+                List<WindowPanel> panels = new ArrayList<>();
+                for (int k = 0; k < pairs.size(); k++) {
+                    List<String> xy = pairs.get(k);
+                    String suffix = k == 0 ? "" : "-" + (k + 1);
+                    WindowPanel w = part(ReportContent.WINDOWS, problems, err,
+                            () -> windows(sur, proposals, xy.get(0), xy.get(1), suffix, problems));
+                    if (w != null) {
+                        panels.add(w);
+                    }
+                }
+                windows = panels.isEmpty() ? null : panels;
+            }
         }
         bar.step().message(PHASES.get(5));
         ArrheniusPanel arrhenius = part(ReportContent.ARRHENIUS, problems, err, () -> arrhenius(lc, problems));
+        ReportContent.TrackRecordPanel track = part(ReportContent.TRACK_RECORD, problems, err,
+                () -> ReportTrackRecord.panel(lc, problems));
         return new ReportContent(lc, generator(), seed, date, fit, validation, arrhenius, windows,
-                proposals, problems);
+                proposals, problems, track);
     }
 
     private <T> T part(String key, Map<String, String> problems, PrintWriter err, Supplier<T> work) {
@@ -221,8 +246,10 @@ final class ReportCommand implements Callable<Integer> {
         double[] predicted = new double[n];
         double[] lo = new double[n];
         double[] hi = new double[n];
+        String[] ids = new String[n];
         for (int i = 0; i < n; i++) {
             ParityPoint p = pts.get(i);
+            ids[i] = p.runId();
             groups[i] = chartName(p.surrogate());
             measured[i] = p.measured();
             predicted[i] = p.predicted();
@@ -230,10 +257,22 @@ final class ReportCommand implements Callable<Integer> {
             hi[i] = p.hi90();
         }
         String quantity = o.outcome() + " (" + chartUnit(spec.unit().symbol()) + ")";
+        double tMin = Double.NaN;
+        double tMax = Double.NaN;
+        for (dev.terrace.core.campaign.Target t : c.targets()) {
+            if (t.outcome().equals(o.outcome()) && t.hasWindow()) {
+                tMin = t.min();
+                tMax = t.max();
+            }
+        }
+        double bandMin = tMin;
+        double bandMax = tMax;
+        String labelled = chartName(Validation.PHYSICS_GP);
         return figure("parity-" + key(o.outcome()), "Each run's measured " + o.outcome() + " against the prediction "
                 + "made without it, for each predictor; bars are 90 % intervals, the dashed line is a perfect "
-                + "prediction.", () -> Plots.parity(quantity, o.scale().equals("log10"), groups, measured, predicted,
-                lo, hi), ReportContent.VALIDATION, problems);
+                + "prediction, the grey band the target, and the " + labelled + " points carry their run ids.",
+                () -> Plots.parity(quantity, o.scale().equals("log10"), groups, measured, predicted,
+                lo, hi, ids, labelled, bandMin, bandMax), ReportContent.VALIDATION, problems);
     }
 
     /** Short legend names of the predictors. */
@@ -322,14 +361,49 @@ final class ReportCommand implements Callable<Integer> {
         return axes;
     }
 
-    private WindowPanel windows(CampaignSurrogate sur, ProposalSet proposals, Map<String, String> problems) {
-        Campaign c = sur.campaign();
-        List<String> axes = mapAxes(c);
-        if (axes.size() < 2) {
-            problems.put(ReportContent.WINDOWS, "No window maps: a map needs two numeric settings and this "
-                    + "campaign has " + axes.size() + ".");
-            return null;
+    /**
+     * The pairs of settings to map: each --map X,Y as given, checked against the campaign (two
+     * different numeric settings), or the default pair from {@link #mapAxes}.
+     *
+     * @param c the campaign
+     * @return the pairs, in order; empty when the campaign has fewer than two numeric settings
+     * @throws UsageException for a --map value that does not name two numeric settings
+     */
+    List<List<String>> mapPairs(Campaign c) {
+        if (maps == null || maps.isEmpty()) {
+            List<String> axes = mapAxes(c);
+            return axes.size() < 2 ? List.of() : List.of(axes);
         }
+        List<String> numeric = c.parameters().stream().filter(p -> !p.isCategorical()).map(ParameterSpec::name).toList();
+        List<List<String>> pairs = new ArrayList<>();
+        for (String m : maps) {
+            String[] xy = m.split(",", -1);
+            String expected = "; expected two different numeric settings of campaign " + c.id() + " as X,Y, from: "
+                    + String.join(", ", numeric);
+            if (xy.length != 2) {
+                throw new UsageException("--map '" + m + "' is not two setting names joined by a comma" + expected);
+            }
+            String x = xy[0].strip();
+            String y = xy[1].strip();
+            for (String name : List.of(x, y)) {
+                if (!numeric.contains(name)) {
+                    boolean categorical = c.parameters().stream().anyMatch(p -> p.name().equals(name));
+                    throw new UsageException("--map '" + m + "': " + (categorical ? "'" + name + "' is a choice, not"
+                            + " a number, so it cannot be a map axis" : "the campaign has no setting '" + name + "'")
+                            + expected);
+                }
+            }
+            if (x.equals(y)) {
+                throw new UsageException("--map '" + m + "' names the same setting twice" + expected);
+            }
+            pairs.add(List.of(x, y));
+        }
+        return pairs;
+    }
+
+    private WindowPanel windows(CampaignSurrogate sur, ProposalSet proposals, String x, String y, String suffix,
+                                Map<String, String> problems) {
+        Campaign c = sur.campaign();
         Map<String, Object> at = new LinkedHashMap<>();
         String atSource;
         if (proposals != null && !proposals.proposals().isEmpty()) {
@@ -339,8 +413,6 @@ final class ReportCommand implements Callable<Integer> {
         } else {
             atSource = "those of the single recipe with the highest predicted yield";
         }
-        String x = axes.get(0);
-        String y = axes.get(1);
         WindowMapResult plain = WindowMap.compute(sur, x, y, at, MAP_GRID, 0, seed);
         WindowMapResult robust = WindowMap.compute(sur, x, y, plain.at(), MAP_GRID, MAP_TEMPERATURE_UNCERTAINTY_K, seed);
         List<String> held = new ArrayList<>();
@@ -364,7 +436,7 @@ final class ReportCommand implements Callable<Integer> {
                     + "standard deviation of " + Html.num(MAP_TEMPERATURE_UNCERTAINTY_K) + " K (the same error for "
                     + String.join(" and ", robust.temperatureSettings()) + "), the window covers "
                     + Html.percent(robust.windowFraction()) + " of the map"
-                    + (robust.windowShrink() > 0 ? ", " + Html.percent(robust.windowShrink()) + " less" : "")
+                    + (Math.round(100 * robust.windowShrink()) > 0 ? ", " + MapCommand.less(robust.windowShrink()) : "")
                     + ". Recipes in the middle of the window are the safer choice.");
         } else {
             notes.add("No setting of this campaign is a temperature, so a temperature error does not change the map.");
@@ -378,10 +450,10 @@ final class ReportCommand implements Callable<Integer> {
         List<Figure> figs = new ArrayList<>();
         String legend = " Runs are drawn at their own settings (filled: met every target); plus signs are the "
                 + "proposals, numbered by rank; the dashed line marks a yield of " + Html.percent(WindowMap.WINDOW_THRESHOLD) + ".";
-        mapFigure(sur, plain, proposals, "map-plain", "Predicted yield over " + x + " and " + y
+        mapFigure(sur, plain, proposals, "map-plain" + suffix, "Predicted yield over " + x + " and " + y
                 + ", temperatures exactly as set." + legend, problems).ifPresent(figs::add);
         if (robust.robust()) {
-            mapFigure(sur, robust, proposals, "map-robust", "The same map with a random temperature error of "
+            mapFigure(sur, robust, proposals, "map-robust" + suffix, "The same map with a random temperature error of "
                     + Html.num(MAP_TEMPERATURE_UNCERTAINTY_K) + " K (standard deviation) averaged in." + legend, problems)
                     .ifPresent(figs::add);
         }

@@ -55,7 +55,7 @@ class MapCommandTest {
         assertEquals(0, o.code(), o.err());
         assertTrue(o.out().contains("Process window of campaign ga-dots-demo: t_cryst against t_drop, 15 x 15 cells"), o.out());
         assertTrue(o.out().contains("window (yield >= 0.5):"), o.out());
-        assertTrue(o.out().contains("with a 10 K thermocouple error (sd) on t_drop and t_cryst together"), o.out());
+        assertTrue(o.out().contains("with a thermocouple error of 10 K (sd) on t_drop and t_cryst together"), o.out());
         assertTrue(o.out().contains("best cell: t_drop"), o.out());
         assertTrue(o.out().contains("most likely shape:"), o.out());
         assertTrue(o.out().contains("breaks a campaign limit"), o.out());

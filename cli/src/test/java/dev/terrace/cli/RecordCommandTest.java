@@ -22,17 +22,27 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
  * {@code propose} → journal → {@code record} → {@code check}'s track record, on a copy of the demo
- * campaign (invented data) whose run log was given a {@code proposal} column.
+ * campaign (invented data), whose run log has a {@code proposal} column.
  */
 class RecordCommandTest {
 
-    /** The demo copied, with a proposal column added to its run log (the demo log has none). */
+    /** The demo copied; its run log has a (still empty) proposal column. */
     static Path demoWithProposalColumn(Path tmp) throws Exception {
+        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        assertTrue(Files.readString(campaign.resolveSibling("runs.csv")).contains(",proposal,"),
+                "the demo log carries a proposal column");
+        return campaign;
+    }
+
+    /** The demo copied, with the proposal column taken out of its run log (a log made before the column existed). */
+    static Path demoWithoutProposalColumn(Path tmp) throws Exception {
         Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
         Path log = campaign.resolveSibling("runs.csv");
         List<String> out = new ArrayList<>();
         for (String l : Files.readAllLines(log)) {
-            out.add(l.startsWith("#") ? l : l.startsWith("run_id") ? l + ",proposal" : l + ",");
+            // the demo's columns: ..., status, date, proposal (empty), notes
+            out.add(l.startsWith("#") ? l : l.startsWith("run_id") ? l.replace(",proposal,", ",")
+                    : l.replaceFirst("(\\d{4}-\\d\\d-\\d\\d),,", "$1,"));
         }
         Files.write(log, out);
         return campaign;
@@ -84,7 +94,8 @@ class RecordCommandTest {
         assertEquals(sha256(before), sha256(Arrays.copyOf(after, before.length)), "every earlier byte kept");
         String row = Files.readAllLines(log).get(Files.readAllLines(log).size() - 1);
         assertTrue(row.startsWith("D15," + grownAt + ","), row);
-        assertTrue(row.endsWith(",2026-03-02,\"grown, as proposed\"," + first), row);
+        // the demo log's column order: ..., status, date, proposal, notes
+        assertTrue(row.endsWith(",2026-03-02," + first + ",\"grown, as proposed\""), row);
         assertTrue(r1.out().contains("proposed " + Format.setting(tDrop)), r1.out());
         assertTrue(r1.out().contains(NextStep.PREFIX + "terrace check"), r1.out());
 
@@ -124,7 +135,7 @@ class RecordCommandTest {
 
     @Test
     void aLogWithoutAProposalColumnIsNotRewritten(@TempDir Path tmp) throws Exception {
-        Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
+        Path campaign = demoWithoutProposalColumn(tmp);
         Path log = campaign.resolveSibling("runs.csv");
         byte[] before = Files.readAllBytes(log);
         assertUsageError(run("record", campaign.toString(), "proposal=P-12345678", "t_drop=250"),

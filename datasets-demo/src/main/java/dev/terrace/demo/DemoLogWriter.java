@@ -52,6 +52,20 @@ public final class DemoLogWriter {
      * @return the CSV text; never null
      */
     public static String write(VirtualChamber chamber, List<Recipe> recipes) {
+        return write(chamber, recipes, false);
+    }
+
+    /**
+     * Grows every recipe once, in order, and writes the log, optionally with an empty
+     * {@code proposal} column between {@code date} and {@code notes}, ready for runs that follow a
+     * proposal ({@code terrace record --proposal}).
+     *
+     * @param chamber        the chamber; its campaign sets the columns; never null
+     * @param recipes        the recipes in run order; never null
+     * @param proposalColumn whether to write the (empty) proposal column
+     * @return the CSV text; never null
+     */
+    public static String write(VirtualChamber chamber, List<Recipe> recipes, boolean proposalColumn) {
         Objects.requireNonNull(chamber, "chamber");
         Objects.requireNonNull(recipes, "recipes");
         Campaign campaign = chamber.campaign();
@@ -66,6 +80,9 @@ public final class DemoLogWriter {
         campaign.outcomes().forEach(o -> header.add(o.name()));
         header.add("status");
         header.add("date");
+        if (proposalColumn) {
+            header.add("proposal");
+        }
         header.add("notes");
         sb.append(String.join(",", header.stream().map(DemoLogWriter::cell).toList())).append('\n');
 
@@ -103,6 +120,9 @@ public final class DemoLogWriter {
             }
             row.add(result.ok() ? "ok" : "failed");
             row.add(date.toString());
+            if (proposalColumn) {
+                row.add("");
+            }
             String notes = recipe.note();
             if (!result.notes().isEmpty()) {
                 notes = notes.isEmpty() ? result.notes() : notes + "; " + result.notes();

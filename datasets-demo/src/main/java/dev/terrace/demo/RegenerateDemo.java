@@ -45,7 +45,7 @@ public final class RegenerateDemo {
     public static String regenerate() throws IOException, InputException {
         Campaign campaign = demoCampaign();
         List<Recipe> plan = GrowerDesign.plan(campaign, SEED);
-        return DemoLogWriter.write(VirtualChamber.of(campaign, SEED), plan);
+        return DemoLogWriter.write(VirtualChamber.of(campaign, SEED), plan, true);
     }
 
     /**

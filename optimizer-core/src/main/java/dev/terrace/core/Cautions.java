@@ -23,6 +23,22 @@ public final class Cautions {
     }
 
     /**
+     * One line that points to the full cautions, for commands other than {@code check} and
+     * {@code report} (which print them in full), so they are seen without being repeated.
+     *
+     * @param campaign a campaign, or null for the general line
+     * @return the line; never null
+     */
+    public static String pointer(Campaign campaign) {
+        String v = campaign == null ? null : campaign.surface().groupV();
+        String toxic = "As".equals(v) ? "toxic arsenic deposits" : "Sb".equals(v) ? "toxic antimony deposits"
+                : "P".equals(v) ? "phosphorus deposits that can ignite in air" : "toxic or reactive deposits";
+        return "Safety: growing these recipes involves " + toxic + ", liquid nitrogen, hot parts, vacuum and high"
+                + " voltage; 'terrace check', the report and the README give the full cautions, and your local codes,"
+                + " your lab's safety officer and licensed practice take precedence.";
+    }
+
+    /**
      * @param campaign a campaign, or null for the general list
      * @return cautions relevant to it, most specific first; never null
      */

@@ -27,6 +27,8 @@ public enum Quantity {
     LENGTH("nm"),
     /** Particle flux, canonical unit atoms per square centimetre per second. */
     PARTICLE_FLUX("cm^-2 s^-1"),
+    /** Energy, canonical unit electronvolt (photoluminescence peaks, band gaps). */
+    ENERGY("eV"),
     /** A dimensionless number (ratio, count, fraction). */
     DIMENSIONLESS("1"),
     /** A choice among named alternatives set by the grower (for example As2 or As4). */

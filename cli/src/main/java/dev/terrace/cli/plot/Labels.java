@@ -32,6 +32,26 @@ final class Labels {
     }
 
     /**
+     * A setting as a grower writes it: the shortest decimal that reads back as the same double
+     * (253, 0.0732, 3.3e-6), so a held value reads exactly as the proposal's rounded recipe.
+     *
+     * @param v a setting
+     * @return the text; "-" for NaN or infinity
+     */
+    static String setting(double v) {
+        if (!Double.isFinite(v)) {
+            return "-";
+        }
+        BigDecimal b = new BigDecimal(Double.toString(v)).stripTrailingZeros();
+        double a = Math.abs(v);
+        if (a != 0 && (a < 1e-3 || a >= 1e6)) {
+            int exp = b.precision() - b.scale() - 1;
+            return b.movePointLeft(exp).stripTrailingZeros().toPlainString() + "e" + exp;
+        }
+        return b.toPlainString();
+    }
+
+    /**
      * @param v a number
      * @return up to 3 significant digits, scientific below 1e-3 and from 1e5; "-" for NaN
      */

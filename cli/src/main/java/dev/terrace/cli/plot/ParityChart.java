@@ -170,6 +170,67 @@ final class ParityChart {
     }
 
     /**
+     * As {@link #parity(String, boolean, String[], double[], double[], double[], double[])}, with
+     * each point of one group labelled with its run id and the target band shaded on both axes.
+     *
+     * @param quantity   what is compared, with its unit
+     * @param logScale   true for log axes
+     * @param groups     the group of each point
+     * @param measured   measured values
+     * @param predicted  predicted values
+     * @param lo90       lower ends of the 90 % intervals
+     * @param hi90       upper ends of the 90 % intervals
+     * @param runIds     the run id of each point
+     * @param labelGroup the group whose points carry their run id (the others would repeat the ids)
+     * @param targetMin  lower end of the target, -infinity for none (NaN: no band)
+     * @param targetMax  upper end of the target, +infinity for none (NaN: no band)
+     * @return the chart; never null
+     */
+    public static JFreeChart parity(String quantity, boolean logScale, String[] groups, double[] measured,
+                                    double[] predicted, double[] lo90, double[] hi90, String[] runIds,
+                                    String labelGroup, double targetMin, double targetMax) {
+        if (runIds.length != measured.length) {
+            throw new IllegalArgumentException("parity data arrays differ in length");
+        }
+        JFreeChart chart = parity(quantity, logScale, groups, measured, predicted, lo90, hi90);
+        XYPlot plot = chart.getXYPlot();
+        boolean band = !Double.isNaN(targetMin) && !Double.isNaN(targetMax)
+                && (Double.isFinite(targetMin) || Double.isFinite(targetMax));
+        if (band) {
+            for (boolean domain : new boolean[] {true, false}) {
+                ValueAxis a = domain ? plot.getDomainAxis() : plot.getRangeAxis();
+                double lo = Double.isFinite(targetMin) ? targetMin : a.getLowerBound();
+                double hi = Double.isFinite(targetMax) ? targetMax : a.getUpperBound();
+                org.jfree.chart.plot.IntervalMarker m = new org.jfree.chart.plot.IntervalMarker(lo, hi,
+                        new Color(120, 120, 120, 40));
+                m.setOutlinePaint(null);
+                if (domain) {
+                    plot.addDomainMarker(m, org.jfree.chart.ui.Layer.BACKGROUND);
+                } else {
+                    plot.addRangeMarker(m, org.jfree.chart.ui.Layer.BACKGROUND);
+                }
+            }
+            LegendItemCollection legend = plot.getFixedLegendItems();
+            legend.add(new org.jfree.chart.LegendItem("target band (grey)", null, null, null,
+                    new java.awt.geom.Rectangle2D.Double(-7, -5, 14, 10), new Color(120, 120, 120, 80)));
+            plot.setFixedLegendItems(legend);
+        }
+        for (int k = 0; k < measured.length; k++) {
+            if (!groups[k].equals(labelGroup) || runIds[k] == null || !Double.isFinite(measured[k])
+                    || !Double.isFinite(predicted[k]) || (logScale && (measured[k] <= 0 || predicted[k] <= 0))) {
+                continue;
+            }
+            org.jfree.chart.annotations.XYTextAnnotation t = new org.jfree.chart.annotations.XYTextAnnotation(
+                    " " + runIds[k], measured[k], predicted[k]);
+            t.setFont(SUBTITLE_FONT);
+            t.setPaint(INK);
+            t.setTextAnchor(org.jfree.chart.ui.TextAnchor.BOTTOM_LEFT);
+            plot.addAnnotation(t);
+        }
+        return chart;
+    }
+
+    /**
      * Horizontal offset between groups of a parity plot, as a share of the measured range (on
      * log10 for log axes); small enough not to mislead, large enough to separate the bars.
      */

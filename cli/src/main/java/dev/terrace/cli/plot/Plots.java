@@ -97,8 +97,47 @@ public final class Plots {
      * @param points   the held-out predictions, in the outcome's campaign unit; never null
      * @return the chart; never null
      */
+    public static JFreeChart parity(String quantity, boolean logScale, String[] groups, double[] measured,
+                                    double[] predicted, double[] lo90, double[] hi90, String[] runIds,
+                                    String labelGroup, double targetMin, double targetMax) {
+        return ParityChart.parity(quantity, logScale, groups, measured, predicted, lo90, hi90, runIds, labelGroup,
+                targetMin, targetMax);
+    }
+
+    /**
+     * Parity chart of held-out predictions.
+     *
+     * @param quantity what is compared, with its unit
+     * @param logScale true for log axes
+     * @param points   the held-out predictions; never null
+     * @return the chart; never null
+     */
     public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points) {
         return ParityChart.parity(quantity, logScale, points);
+    }
+
+    /**
+     * The track record of past proposals for one numeric outcome: per grown proposal (labelled with
+     * its run id), the mean and 90 % interval predicted when it was proposed, the value measured,
+     * and the target band.
+     *
+     * @param quantity  the outcome with its unit
+     * @param logScale  true for a log axis ({@code scale: log} outcomes; values must be &gt; 0)
+     * @param labels    run id of each grown proposal
+     * @param predicted predicted means (NaN when there was no prediction)
+     * @param lo90      lower ends of the 90 % intervals
+     * @param hi90      upper ends of the 90 % intervals
+     * @param measured  measured values (NaN when not measured)
+     * @param targetMin lower end of the target band, or -infinity (NaN for none)
+     * @param targetMax upper end of the target band, or +infinity (NaN for none)
+     * @return the chart; never null
+     * @throws IllegalArgumentException when the arrays differ in length or are empty
+     */
+    public static JFreeChart trackRecord(String quantity, boolean logScale, String[] labels, double[] predicted,
+                                         double[] lo90, double[] hi90, double[] measured, double targetMin,
+                                         double targetMax) {
+        return TrackRecordChart.chart(quantity, logScale, labels, predicted, lo90, hi90, measured, targetMin,
+                targetMax);
     }
 
     /**

@@ -166,17 +166,30 @@ final class WindowMapChart {
         }
         plot.setDataset(1, runData);
         plot.setRenderer(1, runRenderer);
+        // series drawn in legend order, so failed runs (the last series) come on top and are never hidden
+        plot.setSeriesRenderingOrder(org.jfree.chart.plot.SeriesRenderingOrder.FORWARD);
+        repeatCounts(plot, runs, xp, yp);
         // dataset 2: proposals
         XYSeriesCollection propData = new XYSeriesCollection();
         XYSeries ps = new XYSeries("proposals", false, true);
+        List<double[]> taken = new ArrayList<>();
+        for (WindowMapResult.ClassRegion r : map.classRegions()) {
+            if (r.fraction() >= Plots.LABEL_MIN_SHARE && r.cells() >= 3) {
+                double w = LABEL_CHAR_UNITS * (r.className().length() + 2);
+                double cx = xp.toUnit(r.x());
+                double cy = yp.toUnit(r.y());
+                taken.add(new double[] {cx - w / 2, cy - LABEL_HEIGHT_UNITS / 2, cx + w / 2, cy + LABEL_HEIGHT_UNITS / 2});
+            }
+        }
         for (Proposal p : proposals) {
             Object vx = p.recipe().get(xp.name());
             Object vy = p.recipe().get(yp.name());
             if (vx instanceof Double && vy instanceof Double && Double.isFinite((Double) vx) && Double.isFinite((Double) vy)) {
                 ps.add((Double) vx, (Double) vy);
                 int number = p.rank() > 0 ? p.rank() : ps.getItemCount();
-                XYTextAnnotation t = boxed(" " + number + " ", (Double) vx, (Double) vy,
-                        labelAnchor(number, xp.toUnit((Double) vx), yp.toUnit((Double) vy)));
+                String label = " " + number + " ";
+                XYTextAnnotation t = boxed(label, (Double) vx, (Double) vy,
+                        freeAnchor(label, xp.toUnit((Double) vx), yp.toUnit((Double) vy), taken));
                 plot.addAnnotation(t);
             }
         }
@@ -197,7 +210,7 @@ final class WindowMapChart {
         if (map.classOutcome() != null) {
             legend.add(lineItem("boundary between most likely " + map.classOutcome() + " classes", CLASS_LEGEND));
         }
-        legend.add(lineItem(map.robust() ? String.format(Locale.ROOT, "window edge with a %s K thermocouple error",
+        legend.add(lineItem(map.robust() ? String.format(Locale.ROOT, "window edge with a thermocouple error of %s K",
                 Labels.num(map.temperatureUncertaintyK())) : "window edge (yield 0.5)", WINDOW_LEGEND));
         if (map.robust()) {
             legend.add(lineItem("window edge at the set point", PLAIN_LEGEND));
@@ -268,27 +281,92 @@ final class WindowMapChart {
         }
     }
 
+    /** Approximate width of one label character, as a share of the plot's width (bold 12 pt on a ~700 px plot). */
+    static final double LABEL_CHAR_UNITS = 0.012;
+    /** Approximate height of a boxed label, as a share of the plot's height. */
+    static final double LABEL_HEIGHT_UNITS = 0.04;
+    /** Gap kept between a marker's centre and its label, as a share of the plot (about a marker's radius). */
+    static final double LABEL_GAP_UNITS = 0.008;
+
+    /** The four corners a proposal label may sit at, in the order they are tried. */
+    private static final TextAnchor[] CORNERS = {TextAnchor.BOTTOM_LEFT, TextAnchor.TOP_LEFT, TextAnchor.BOTTOM_RIGHT,
+        TextAnchor.TOP_RIGHT};
+
     /**
-     * Where a proposal's number goes: up and right of odd ranks, down and left of even ones (so
-     * neighbours' labels do not overlap), turned inwards near the edges of the box.
+     * Picks the corner for a proposal's label whose box stays inside the plot and overlaps no label
+     * placed before (class names, earlier proposals), or failing that the one that overlaps least;
+     * the chosen box is added to {@code taken}. Boxes are in axis units (0 to 1 across the plot).
+     *
+     * @param label the label text
+     * @param ux    the proposal's x, 0 to 1 across the plot
+     * @param uy    the proposal's y, 0 to 1 up the plot
+     * @param taken the boxes already placed, {x0, y0, x1, y1}; the chosen one is added
+     * @return the anchor; never null
      */
-    static TextAnchor labelAnchor(int number, double ux, double uy) {
-        boolean up = number % 2 == 1;
-        boolean right = number % 2 == 1;
-        if (up && uy > 0.9) {
-            up = false;
-        } else if (!up && uy < 0.1) {
-            up = true;
+    static TextAnchor freeAnchor(String label, double ux, double uy, List<double[]> taken) {
+        double w = LABEL_CHAR_UNITS * label.length() + 0.01;
+        double h = LABEL_HEIGHT_UNITS;
+        TextAnchor best = null;
+        double bestCost = Double.POSITIVE_INFINITY;
+        double[] bestBox = null;
+        for (TextAnchor a : CORNERS) {
+            boolean left = a == TextAnchor.BOTTOM_LEFT || a == TextAnchor.TOP_LEFT; // text starts at the point
+            boolean bottom = a == TextAnchor.BOTTOM_LEFT || a == TextAnchor.BOTTOM_RIGHT; // text sits above it
+            double x0 = left ? ux + LABEL_GAP_UNITS : ux - LABEL_GAP_UNITS - w;
+            double y0 = bottom ? uy + LABEL_GAP_UNITS : uy - LABEL_GAP_UNITS - h;
+            double[] box = {x0, y0, x0 + w, y0 + h};
+            double cost = 0;
+            for (double[] t : taken) {
+                cost += overlap(box, t);
+            }
+            // leaving the plot costs more than any overlap: a clipped label cannot be read
+            cost += 10 * (Math.max(0, -box[0]) + Math.max(0, box[2] - 1) + Math.max(0, -box[1]) + Math.max(0, box[3] - 1));
+            if (cost < bestCost - 1e-12) {
+                bestCost = cost;
+                best = a;
+                bestBox = box;
+            }
         }
-        if (right && ux > 0.9) {
-            right = false;
-        } else if (!right && ux < 0.1) {
-            right = true;
+        taken.add(bestBox);
+        return best;
+    }
+
+    private static double overlap(double[] a, double[] b) {
+        double w = Math.min(a[2], b[2]) - Math.max(a[0], b[0]);
+        double h = Math.min(a[3], b[3]) - Math.max(a[1], b[1]);
+        return w > 0 && h > 0 ? w * h : 0;
+    }
+
+    /**
+     * Writes "x3" beside a marker where several runs share one recipe on the map's two axes, so
+     * the count is visible though the markers coincide.
+     */
+    static void repeatCounts(XYPlot plot, List<Run> runs, ParameterSpec xp, ParameterSpec yp) {
+        Map<List<Double>, Integer> counts = new LinkedHashMap<>();
+        for (Run r : runs) {
+            if (r.number(xp.name()).isPresent() && r.number(yp.name()).isPresent()) {
+                counts.merge(List.of(r.number(xp.name()).getAsDouble(), r.number(yp.name()).getAsDouble()), 1,
+                        Integer::sum);
+            }
         }
-        if (up) {
-            return right ? TextAnchor.BOTTOM_LEFT : TextAnchor.BOTTOM_RIGHT;
+        for (Map.Entry<List<Double>, Integer> e : counts.entrySet()) {
+            if (e.getValue() < 2) {
+                continue;
+            }
+            org.jfree.chart.annotations.XYPointerAnnotation a = new org.jfree.chart.annotations.XYPointerAnnotation(
+                    "\u00d7" + e.getValue(), e.getKey().get(0), e.getKey().get(1), -Math.PI / 4);
+            a.setTipRadius(7);
+            a.setBaseRadius(7);
+            a.setArrowLength(0);
+            a.setArrowWidth(0);
+            a.setArrowPaint(new Color(0, 0, 0, 0));
+            a.setLabelOffset(1);
+            a.setFont(SUBTITLE_FONT.deriveFont(java.awt.Font.BOLD));
+            a.setPaint(INK);
+            a.setBackgroundPaint(Color.WHITE);
+            a.setTextAnchor(TextAnchor.BOTTOM_LEFT);
+            plot.addAnnotation(a);
         }
-        return right ? TextAnchor.TOP_LEFT : TextAnchor.TOP_RIGHT;
     }
 
     static int order(String key, WindowMapResult map) {
@@ -329,7 +407,7 @@ final class WindowMapChart {
             }
             sb.append(first ? "" : ", ").append(e.getKey()).append(' ');
             if (e.getValue() instanceof Double) {
-                sb.append(Labels.num((Double) e.getValue()));
+                sb.append(Labels.setting((Double) e.getValue()));
                 c.parameter(e.getKey()).filter(p -> !p.isCategorical())
                         .ifPresent(p -> sb.append(' ').append(Labels.unit(p.unit().symbol())));
             } else {
@@ -347,7 +425,7 @@ final class WindowMapChart {
         String s = String.format(Locale.ROOT, "Window (yield \u2265 %s): %s of the map", Labels.num(WindowMap.WINDOW_THRESHOLD),
                 percent(map.windowFraction()));
         if (map.robust()) {
-            s += String.format(Locale.ROOT, " with a %s K thermocouple error (sd) on %s; %s at the set point.",
+            s += String.format(Locale.ROOT, " with a thermocouple error of %s K (sd) on %s; %s at the set point.",
                     Labels.num(map.temperatureUncertaintyK()), String.join(" and ", map.temperatureSettings()),
                     percent(map.plainWindowFraction()));
         } else {

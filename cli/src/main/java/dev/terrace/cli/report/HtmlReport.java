@@ -51,6 +51,16 @@ public final class HtmlReport {
     public static final String H_WINDOWS = "Where the targets are met";
     /** Title of the proposals section. */
     public static final String H_PROPOSALS = "Proposed next runs";
+    /**
+     * What the distance to a proposal's nearest run measures (the scaled distance of
+     * {@code DesignSpace.distance}), in words for the table and the report.
+     */
+    public static final String NEAREST_DISTANCE = "each numeric setting's box scaled to 0 to 1 (log settings on"
+            + " their log axis), Euclidean over the settings, plus 1 for each different choice; 0 is the same recipe,"
+            + " 1 a whole box width away";
+
+    /** Title of the track-record section. */
+    public static final String H_TRACK = "How past proposals came out";
     /** Title of the safety section. */
     public static final String H_SAFETY = "Safety";
     /** Title of the explanations section. */
@@ -58,7 +68,7 @@ public final class HtmlReport {
 
     /** Every section title in page order. */
     public static final List<String> SECTIONS = List.of(H_SUMMARY, H_RUNS, H_PARAMETERS, H_VALIDATION, H_ARRHENIUS,
-            H_WINDOWS, H_PROPOSALS, H_SAFETY, H_MEANING);
+            H_WINDOWS, H_TRACK, H_PROPOSALS, H_SAFETY, H_MEANING);
 
     private static final String MET = "\u2713\u00a0met";
     private static final String MISSED = "\u2717\u00a0missed";
@@ -90,6 +100,7 @@ public final class HtmlReport {
         validation(h, c);
         arrhenius(h, c);
         windows(h, c);
+        TrackRecordHtml.render(h, c);
         proposals(h, c);
         safety(h, camp);
         meaning(h, c);
@@ -131,15 +142,15 @@ public final class HtmlReport {
         return heading.toLowerCase(java.util.Locale.ROOT).replaceAll("[^a-z0-9]+", "-").replaceAll("(^-|-$)", "");
     }
 
-    private static void section(Html h, String heading, String cssClass) {
+    static void section(Html h, String heading, String cssClass) {
         h.open("section", cssClass, "id", anchor(heading)).nl().el("h2", null, heading).nl();
     }
 
-    private static void endSection(Html h) {
+    static void endSection(Html h) {
         h.close("section").nl();
     }
 
-    private static void problem(Html h, ReportContent c, String key) {
+    static void problem(Html h, ReportContent c, String key) {
         String p = c.problems().get(key);
         if (p != null && !p.isBlank()) {
             h.el("p", "note", p).nl();
@@ -533,7 +544,7 @@ public final class HtmlReport {
         }
     }
 
-    private static void figures(Html h, List<Figure> figs, String cssClass) {
+    static void figures(Html h, List<Figure> figs, String cssClass) {
         if (figs.isEmpty()) {
             return;
         }
@@ -575,18 +586,23 @@ public final class HtmlReport {
     private static void windows(Html h, ReportContent c) {
         section(h, H_WINDOWS, "break");
         problem(h, c, ReportContent.WINDOWS);
-        WindowPanel w = c.windows();
-        if (w == null) {
+        List<WindowPanel> panels = c.windows();
+        if (panels == null) {
             endSection(h);
             return;
         }
-        h.open("p", null).text("Predicted yield over ").el("code", null, w.x()).text(" and ").el("code", null, w.y())
-                .text(", the other settings held at " + w.atSource() + ": " + String.join(", ", w.at()) + ".")
-                .close("p").nl();
-        for (String n : w.notes()) {
-            h.el("p", null, n).nl();
+        for (WindowPanel w : panels) {
+            if (panels.size() > 1) {
+                h.open("h3", null).el("code", null, w.y()).text(" against ").el("code", null, w.x()).close("h3").nl();
+            }
+            h.open("p", null).text("Predicted yield over ").el("code", null, w.x()).text(" and ").el("code", null, w.y())
+                    .text(", the other settings held at " + w.atSource() + ": " + String.join(", ", w.at()) + ".")
+                    .close("p").nl();
+            for (String n : w.notes()) {
+                h.el("p", null, n).nl();
+            }
+            figures(h, w.figures(), "single");
         }
-        figures(h, w.figures(), "single");
         endSection(h);
     }
 
@@ -669,7 +685,8 @@ public final class HtmlReport {
             h.close("ul").nl();
             if (p.nearestRun() != null) {
                 h.el("p", "small", "Closest logged run: " + p.nearestRun() + " (distance "
-                        + Html.num(p.nearestDistance()) + " in the scaled box).").nl();
+                        + Html.num(p.nearestDistance()) + ", with " + NEAREST_DISTANCE
+                        + ").").nl();
             }
             if (!p.flags().isEmpty()) {
                 h.open("ul", "flags");

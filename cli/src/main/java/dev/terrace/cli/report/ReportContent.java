@@ -23,14 +23,54 @@ import java.util.Objects;
  * @param fit        the growth-model fit with 95 % intervals, or null
  * @param validation how well the surrogates predict runs they were not trained on, or null
  * @param arrhenius  density against 1/kT, or null
- * @param windows    where the targets are met over two settings, or null
+ * @param windows    where the targets are met, one panel per pair of mapped settings; null when none
  * @param proposals  the proposed next runs, or null
  * @param problems   why a part is missing or incomplete, by part key; never null
+ * @param trackRecord how past proposals came out, or null
  * @since 0.1
  */
 public record ReportContent(LoadedCampaign loaded, String generator, long seed, LocalDate date, FitReport fit,
-                            ValidationPanel validation, ArrheniusPanel arrhenius, WindowPanel windows,
-                            ProposalSet proposals, Map<String, String> problems) {
+                            ValidationPanel validation, ArrheniusPanel arrhenius, List<WindowPanel> windows,
+                            ProposalSet proposals, Map<String, String> problems, TrackRecordPanel trackRecord) {
+
+    /**
+     * A report without a track record.
+     *
+     * @param loaded     the campaign
+     * @param generator  the program and version
+     * @param seed       the seed
+     * @param date       the day
+     * @param fit        the fit, or null
+     * @param validation the validation, or null
+     * @param arrhenius  the Arrhenius plot, or null
+     * @param windows    the window maps, or null
+     * @param proposals  the proposals, or null
+     * @param problems   why parts are missing
+     */
+    public ReportContent(LoadedCampaign loaded, String generator, long seed, LocalDate date, FitReport fit,
+                         ValidationPanel validation, ArrheniusPanel arrhenius, List<WindowPanel> windows,
+                         ProposalSet proposals, Map<String, String> problems) {
+        this(loaded, generator, seed, date, fit, validation, arrhenius, windows, proposals, problems, null);
+    }
+
+    /** Key of the track record. */
+    public static final String TRACK_RECORD = "track-record";
+
+    /**
+     * How the proposals grown so far came out.
+     *
+     * @param journal the journal file's name; never null
+     * @param record  the grown proposals, predicted against measured; never null
+     * @param figures one plot per numeric outcome with a prediction; never null
+     */
+    public record TrackRecordPanel(String journal, dev.terrace.core.journal.TrackRecord record, List<Figure> figures) {
+        /** Checks and copies the contents. */
+        public TrackRecordPanel {
+            Objects.requireNonNull(journal, "journal");
+            Objects.requireNonNull(record, "record");
+            figures = List.copyOf(figures);
+        }
+    }
 
     /** Key of the growth-model fit. */
     public static final String FIT = "fit";
@@ -49,6 +89,7 @@ public record ReportContent(LoadedCampaign loaded, String generator, long seed, 
         Objects.requireNonNull(generator, "generator");
         Objects.requireNonNull(date, "date");
         problems = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(problems));
+        windows = windows == null ? null : List.copyOf(windows);
     }
 
     /**

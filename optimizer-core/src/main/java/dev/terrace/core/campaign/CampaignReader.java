@@ -362,7 +362,7 @@ public final class CampaignReader {
                 error(m.get("role").getValueNode(), "role '" + role.key() + "' needs choices: [...]");
                 role = null;
             }
-            Unit unit = unit(m, body, name, role == null ? null : role.quantity());
+            Unit unit = unit(m, body, name, role == null ? null : role.quantity(), false);
             Double min = number(m, "min", body, name);
             Double max = number(m, "max", body, name);
             Scale scale = scale(m);
@@ -439,7 +439,7 @@ public final class CampaignReader {
                 error(m.get("role").getValueNode(), "role '" + role.key() + "' needs classes: [...]");
                 role = null;
             }
-            Unit unit = unit(m, body, name, role == null ? null : role.quantity());
+            Unit unit = unit(m, body, name, role == null ? null : role.quantity(), true);
             Scale scale = scale(m);
             if (unit != null) {
                 out.add(new OutcomeSpec(name, unit, scale == null ? Scale.LINEAR : scale, role, List.of(), pos(key)));
@@ -708,7 +708,12 @@ public final class CampaignReader {
         return r.get();
     }
 
-    private Unit unit(Map<String, NodeTuple> m, Node body, String name, Quantity expected) {
+    /**
+     * The unit of a setting or outcome. A bad unit is reported once and a label unit returned, so
+     * the setting or outcome still exists for the targets, limits and run-log columns that name it
+     * (no cascade of errors after one bad unit). An outcome with no role may carry any label.
+     */
+    private Unit unit(Map<String, NodeTuple> m, Node body, String name, Quantity expected, boolean anyLabel) {
         NodeTuple t = m.get("unit");
         if (t == null) {
             error(body, "'" + name + "' needs a unit (for example "
@@ -727,14 +732,14 @@ public final class CampaignReader {
                         + expected.name().toLowerCase(java.util.Locale.ROOT).replace('_', ' ') + "; expected one of "
                         + String.join(", ", ok) + hint(sym, ok));
             }
-            return u.orElse(null);
+            return u.orElseGet(() -> sym.isBlank() ? null : Units.label(sym));
         }
         Optional<Unit> u = Units.bySymbol(sym);
-        if (u.isEmpty()) {
+        if (u.isEmpty() && !anyLabel) {
             error(t.getValueNode(), "unknown unit '" + sym + "'; expected one of " + String.join(", ", Units.symbols())
                     + hint(sym, Units.symbols()));
         }
-        return u.orElse(null);
+        return u.orElseGet(() -> sym.isBlank() ? null : Units.label(sym));
     }
 
     private Scale scale(Map<String, NodeTuple> m) {

@@ -43,14 +43,34 @@ public final class Units {
         add(new Unit("min", Quantity.TIME, 60, 0, false));
         add(new Unit("h", Quantity.TIME, 3600, 0, false));
         add(new Unit("deg", Quantity.ANGLE, 1, 0, false));
+        // 1 arcsec = 1/3600 deg (X-ray rocking-curve widths)
+        add(new Unit("arcsec", Quantity.ANGLE, 1.0 / 3600.0, 0, false));
         add(new Unit("cm^-2", Quantity.AREAL_DENSITY, 1, 0, false));
         add(new Unit("um^-2", Quantity.AREAL_DENSITY, 1e8, 0, false));
         add(new Unit("nm", Quantity.LENGTH, 1, 0, false));
         add(new Unit("um", Quantity.LENGTH, 1000, 0, false));
         add(new Unit("cm^-2 s^-1", Quantity.PARTICLE_FLUX, 1, 0, false));
+        add(new Unit("eV", Quantity.ENERGY, 1, 0, false));
+        add(new Unit("meV", Quantity.ENERGY, 1e-3, 0, false));
         add(new Unit("1", Quantity.DIMENSIONLESS, 1, 0, false));
         // a share of a whole, 0 to 1 (yields, areal coverages, fill factors); predictions stay in [0, 1]
         add(new Unit("fraction", Quantity.DIMENSIONLESS, 1, 0, false));
+        // per cent: 1 % = 0.01 (SI Brochure, 9th ed., 5.4.7)
+        add(new Unit("%", Quantity.DIMENSIONLESS, 0.01, 0, false));
+    }
+
+    /**
+     * A unit label the table does not know, for an outcome with no role: kept as written, printed
+     * as written and never converted (a dimensionless factor of 1).
+     *
+     * @param symbol the label as written; never blank
+     * @return the label unit; never null
+     */
+    public static Unit label(String symbol) {
+        if (symbol == null || symbol.isBlank()) {
+            throw new IllegalArgumentException("a unit label must not be blank");
+        }
+        return new Unit(symbol, Quantity.DIMENSIONLESS, 1, 0, false);
     }
 
     /** A deposited amount given as a thickness in nm (converted with the monolayer height). */

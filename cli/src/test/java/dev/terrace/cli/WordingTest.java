@@ -49,6 +49,8 @@ class WordingTest {
 
     @Test
     void aShrinkThatRoundsToZeroIsNotZeroPercentLess() {
+        // worked by hand (no published source needed): 0.004 rounds to 0 % at whole percent, so it is
+        // "the same to the nearest 1 %"; 0.12 is 12 % less; a negative shrink of 0.03 is 3 % more
         assertEquals("the same to the nearest 1 %", MapCommand.less(0.004));
         assertEquals("12 % less", MapCommand.less(0.12));
         assertEquals("3 % more", MapCommand.less(-0.03));

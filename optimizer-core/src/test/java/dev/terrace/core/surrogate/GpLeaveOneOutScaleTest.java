@@ -38,7 +38,8 @@ class GpLeaveOneOutScaleTest {
             }
         }
         assertEquals(bestC, loo.varianceScale(), 1e-4, "grid maximum of the leave-one-out log predictive");
-        // by hand: z^2 = 2.25, 2.778, 0.8, 4.05, 0.333, 4.9; mean 2.5185
+        // derived by hand from the definition (R&W 2006 eq. 5.10, no published table value):
+        // z^2 = e^2/v = 2.25, 2.778, 0.8, 4.05, 0.333, 4.9; mean 2.5185
         assertEquals(2.5185, loo.varianceScale(), 1e-4);
         assertEquals(Math.sqrt(loo.varianceScale()), loo.sdFactor(), 1e-12, "six runs: the spread is widened");
     }
@@ -47,6 +48,7 @@ class GpLeaveOneOutScaleTest {
     void theSpreadIsOnlyWidenedAndOnlyFromFiveRunsOn() {
         double[] y = {1, 2, 3, 4};
         GpLeaveOneOut four = GpLeaveOneOut.of(y, new double[] {1, 1, 1, 1}, new double[] {0.1, 0.1, 0.1, 0.1});
+        // derived by hand: e^2/v = 1/0.1 = 10 for every run; below, 0.01/1 = 0.01
         assertEquals(10, four.varianceScale(), 1e-12);
         assertEquals(1, four.sdFactor(), 0, "below GpLeaveOneOut.MIN_RUNS errors the factor stays 1");
         double[] y5 = {1, 2, 3, 4, 5};

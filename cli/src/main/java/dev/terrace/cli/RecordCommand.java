@@ -63,7 +63,8 @@ final class RecordCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         java.time.Clock clock = Main.clock(spec);
         Map<String, String> given = parse(values);
-        LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
+        // recording fits no model, so a log of any length (within the read limits) takes a new run
+        LoadedCampaign lc = LoadedCampaign.openAnySize(campaignFile, Registries.load(global, err));
         Campaign c = lc.campaign();
         Map<String, String> cells = new LinkedHashMap<>();
         List<String> overridden = new ArrayList<>();

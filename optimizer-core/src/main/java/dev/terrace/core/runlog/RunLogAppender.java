@@ -170,6 +170,7 @@ public final class RunLogAppender {
             throw new InputException(Diagnostic.error(file, 0, 0, "run log not found; create it first"
                     + " (terrace init writes one with the header row)"));
         }
+        InputFiles.requireRegular(file, InputFiles.RUN_LOG); // a folder, FIFO or device is never opened
         synchronized (LOCAL_LOCKS.computeIfAbsent(real, k -> new Object())) {
             for (int attempt = 0; attempt < LOCK_ATTEMPTS; attempt++) {
                 Object before = key(real);
@@ -380,25 +381,11 @@ public final class RunLogAppender {
     }
 
     /**
-     * Reads the log through the locked channel itself: on POSIX systems closing any other
-     * descriptor of the file would release this process's lock.
+     * Reads the log through the locked channel itself, with the limits of every reader: on POSIX
+     * systems closing any other descriptor of the file would release this process's lock.
      */
     private static byte[] readLocked(Path file, FileChannel ch) throws IOException, InputException {
-        long size = ch.size();
-        if (size > InputFiles.MAX_TABLE_BYTES) {
-            throw new InputException(Diagnostic.error(file, 0, 0, "the run log is larger than "
-                    + (InputFiles.MAX_TABLE_BYTES >> 20) + " MiB, the most Terrace reads"));
-        }
-        ByteBuffer buf = ByteBuffer.allocate((int) size);
-        long at = 0;
-        while (buf.hasRemaining()) {
-            int n = ch.read(buf, at);
-            if (n < 0) {
-                break;
-            }
-            at += n;
-        }
-        return Arrays.copyOf(buf.array(), buf.position());
+        return InputFiles.read(file, InputFiles.RUN_LOG, ch);
     }
 
     private static Object key(Path real) throws IOException {

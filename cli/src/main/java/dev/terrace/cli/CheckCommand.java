@@ -3,7 +3,6 @@ package dev.terrace.cli;
 import dev.terrace.core.Cautions;
 import dev.terrace.core.CensoredCells;
 import dev.terrace.core.CheckSummary;
-import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.Target;
@@ -39,11 +38,9 @@ final class CheckCommand implements Callable<Integer> {
         LoadedCampaign lc = LoadedCampaign.openAnySize(campaignFile, Registries.load(global, err));
         print(lc, out, global.quiet);
         TrackRecordSection.Result track = TrackRecordSection.print(lc, out);
-        for (Diagnostic d : lc.warnings()) {
-            err.println(d);
-        }
-        track.journal().warnings().forEach(err::println);
-        track.trackRecord().warnings().forEach(err::println);
+        DiagnosticLines.print(err, lc.warnings());
+        DiagnosticLines.print(err, track.journal().warnings());
+        DiagnosticLines.print(err, track.trackRecord().warnings());
         out.println(NextStep.afterCheck(campaignFile, lc, track.journal()));
         err.flush();
         out.flush();

@@ -108,9 +108,7 @@ final class RecordCommand implements Callable<Integer> {
         for (String o : overridden) {
             out.println("  setting as grown: " + o);
         }
-        for (Diagnostic d : a.warnings()) {
-            err.println(d);
-        }
+        DiagnosticLines.print(err, a.warnings());
         if (!dryRun) {
             out.println(NextStep.afterRecord(campaignFile, a, followed != null));
             if (!global.quiet) {

@@ -265,6 +265,9 @@ public final class RunLogAppender {
         } catch (InputException e) {
             List<Diagnostic> named = new ArrayList<>();
             for (Diagnostic d : e.diagnostics()) {
+                if (d.line() < line && d.severity() != Diagnostic.Severity.ERROR) {
+                    continue; // an existing row's warning is check's to report, not a cause of this refusal
+                }
                 named.add(d.line() < line ? d : new Diagnostic(d.file(), d.line(), d.column(), d.severity(),
                         "the new row" + argument(columns, starts, cells, d.column()) + ": " + d.message()));
             }

@@ -9,10 +9,8 @@ import dev.terrace.core.campaign.Target;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
-import picocli.CommandLine.Parameters;
 
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
@@ -26,22 +24,19 @@ final class CheckCommand implements Callable<Integer> {
     CommandLine.Model.CommandSpec spec;
 
     @Mixin
-    GlobalOptions global = new GlobalOptions();
-
-    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
-    Path campaignFile;
+    CampaignInput input = new CampaignInput();
 
     @Override
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        LoadedCampaign lc = LoadedCampaign.openAnySize(campaignFile, Registries.load(global, err));
-        print(lc, out, global.quiet);
+        LoadedCampaign lc = LoadedCampaign.openAnySize(input.file, Registries.load(input.global, err));
+        print(lc, out, input.global.quiet);
         TrackRecordSection.Result track = TrackRecordSection.print(lc, out);
         DiagnosticLines.print(err, lc.warnings());
         DiagnosticLines.print(err, track.journal().warnings());
         DiagnosticLines.print(err, track.trackRecord().warnings());
-        out.println(NextStep.afterCheck(campaignFile, lc, track.journal()));
+        out.println(NextStep.afterCheck(input.file, lc, track.journal()));
         err.flush();
         out.flush();
         return 0;

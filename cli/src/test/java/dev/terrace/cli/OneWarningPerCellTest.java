@@ -10,7 +10,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 
-import static dev.terrace.cli.CliTest.run;
+import static dev.terrace.cli.CliFixtures.run;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -46,7 +46,7 @@ class OneWarningPerCellTest {
     void checkPrintsOnePositionedWarningPerOutOfBoxCell(@TempDir Path tmp) throws Exception {
         Path campaign = campaignWithOutOfBoxCells(tmp);
         String log = campaign.resolveSibling("runs.csv").toString();
-        CliTest.Outcome o = run("check", campaign.toString());
+        CliFixtures.Outcome o = run("check", campaign.toString());
         assertEquals(0, o.code(), o.err());
         List<String> w = boxWarnings(o.err());
         assertEquals(3, w.size(), o.err());
@@ -62,16 +62,16 @@ class OneWarningPerCellTest {
         Path campaign = campaignWithOutOfBoxCells(tmp);
         Path log = campaign.resolveSibling("runs.csv");
         int newLine = Files.readAllLines(log).size() + 1;
-        String before = CliSafetyTest.sha256(log);
-        CliTest.Outcome refused = run("record", campaign.toString(), "t_drop=600", "dot_density=lots");
+        String before = CliFixtures.sha256(log);
+        CliFixtures.Outcome refused = run("record", campaign.toString(), "t_drop=600", "dot_density=lots");
         assertEquals(2, refused.code(), refused.err());
         List<String> w = boxWarnings(refused.err());
         assertEquals(1, w.size(), refused.err());
         assertTrue(w.get(0).startsWith(log + ":" + newLine + ":5: warning: the new row (t_drop=600)"), w.get(0));
         assertEquals(1, refused.err().lines().filter(l -> l.contains(": error: ")).count(), refused.err());
-        assertEquals(before, CliSafetyTest.sha256(log), "nothing was recorded");
+        assertEquals(before, CliFixtures.sha256(log), "nothing was recorded");
 
-        CliTest.Outcome recorded = run("record", campaign.toString(), "t_drop=600", "status=failed", "-q");
+        CliFixtures.Outcome recorded = run("record", campaign.toString(), "t_drop=600", "status=failed", "-q");
         assertEquals(0, recorded.code(), recorded.err());
         w = boxWarnings(recorded.err());
         assertEquals(1, w.size(), recorded.err());

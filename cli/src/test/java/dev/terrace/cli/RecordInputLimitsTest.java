@@ -11,7 +11,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 
-import static dev.terrace.cli.CliTest.run;
+import static dev.terrace.cli.CliFixtures.run;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -29,7 +29,7 @@ class RecordInputLimitsTest {
         System.clearProperty(LoadedCampaign.MAX_MODEL_RUNS_PROPERTY);
     }
 
-    private static void assertRefused(CliTest.Outcome o, String... fragments) {
+    private static void assertRefused(CliFixtures.Outcome o, String... fragments) {
         assertEquals(2, o.code(), o.err());
         for (String f : fragments) {
             assertTrue(o.err().contains(f), "expected '" + f + "' in: " + o.err());
@@ -45,12 +45,12 @@ class RecordInputLimitsTest {
         try (RandomAccessFile f = new RandomAccessFile(log.toFile(), "rw")) {
             f.setLength(50L * 1024 * 1024 + 1); // the demo log, then zeros: one byte above the limit
         }
-        String before = CliSafetyTest.sha256(log);
+        String before = CliFixtures.sha256(log);
         assertRefused(run("record", campaign.toString(), "t_drop=250", "status=failed"), log.toString(),
                 "larger than 50 MiB");
         assertRefused(run("record", campaign.toString(), "--dry-run", "t_drop=250", "status=failed"), log.toString(),
                 "larger than 50 MiB");
-        assertEquals(before, CliSafetyTest.sha256(log));
+        assertEquals(before, CliFixtures.sha256(log));
     }
 
     @Test
@@ -58,10 +58,10 @@ class RecordInputLimitsTest {
         Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
         Path log = campaign.resolveSibling("runs.csv");
         Files.writeString(log, Files.readString(log) + "# " + "x".repeat(1024 * 1024) + "\n");
-        String before = CliSafetyTest.sha256(log);
+        String before = CliFixtures.sha256(log);
         assertRefused(run("record", campaign.toString(), "t_drop=250", "status=failed"), log.toString(),
                 "may be at most 1 MiB");
-        assertEquals(before, CliSafetyTest.sha256(log));
+        assertEquals(before, CliFixtures.sha256(log));
     }
 
     @Test
@@ -88,7 +88,7 @@ class RecordInputLimitsTest {
     void recordingDoesNotFitModelsSoTheModelRunLimitDoesNotApply(@TempDir Path tmp) throws Exception {
         Path campaign = DemoCampaign.copyTo(tmp.resolve("demo"));
         System.setProperty(LoadedCampaign.MAX_MODEL_RUNS_PROPERTY, "3");
-        CliTest.Outcome o = run("record", campaign.toString(), "--dry-run", "t_drop=250", "status=failed");
+        CliFixtures.Outcome o = run("record", campaign.toString(), "--dry-run", "t_drop=250", "status=failed");
         assertEquals(0, o.code(), o.err());
         assertTrue(o.out().startsWith("Would record run "), o.out());
     }

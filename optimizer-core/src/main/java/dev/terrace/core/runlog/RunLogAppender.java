@@ -65,8 +65,14 @@ import java.util.regex.Pattern;
  */
 public final class RunLogAppender {
 
-    /** How often the lock is taken again when another process replaced the log meanwhile. */
-    static final int LOCK_ATTEMPTS = 20;
+    /**
+     * How long the lock is taken again and again while other processes keep replacing the log
+     * (each record replaces it, so a burst of records by another process can win the race for
+     * every new file): 60 s, far longer than a burst of records takes, short enough to end a
+     * runaway loop. Own choice; it was a count of 20 attempts, which a burst of 25 records by one
+     * other process could exhaust on a loaded machine.
+     */
+    static final long LOCK_PATIENCE_NANOS = 60_000_000_000L;
 
     private static final ConcurrentHashMap<Path, Object> LOCAL_LOCKS = new ConcurrentHashMap<>();
     private static final Pattern NUMBERED = Pattern.compile("(.*?)(\\d+)");
@@ -172,7 +178,7 @@ public final class RunLogAppender {
         }
         InputFiles.requireRegular(file, InputFiles.RUN_LOG); // a folder, FIFO or device is never opened
         synchronized (LOCAL_LOCKS.computeIfAbsent(real, k -> new Object())) {
-            for (int attempt = 0; attempt < LOCK_ATTEMPTS; attempt++) {
+            for (long start = System.nanoTime(); System.nanoTime() - start < LOCK_PATIENCE_NANOS; ) {
                 Object before = key(real);
                 try (FileChannel ch = openForLock(file, real); FileLock lock = ch.lock()) {
                     if (before != null && !before.equals(key(real))) {
@@ -185,8 +191,8 @@ public final class RunLogAppender {
                 }
             }
         }
-        throw new OutputFailedException(file, "could not append to the run log " + file + ": it kept being"
-                + " replaced by other processes while waiting for its lock; nothing was written", null);
+        throw new OutputFailedException(file, "could not append to the run log " + file + ": for a minute it"
+                + " kept being replaced by other processes while waiting for its lock; nothing was written", null);
     }
 
     // ------------------------------------------------------------------------------------------

@@ -191,13 +191,13 @@ public final class DropletCrystallizationModel implements GrowthModel {
     public static final double DEFAULT_ETCHING_ONSET_WIDTH_K = 15;
 
     /**
-     * Default group-V atom flux below which droplets etch, 6.06e13 atoms cm^-2 s^-1: the As flux of a
+     * Default group-V atom flux below which droplets etch, 4.38e13 atoms cm^-2 s^-1: the As flux of a
      * 1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014: LDE with the As reading below 1e-7 Torr). Rough
-     * conversion: n = BEP/(eta·k_B·300 K) with the Summers ion-gauge sensitivity eta = 0.4·Z/14 + 0.6 = 4.371
-     * for As4 (NASA TN D-5285 (1969), coefficients from memory), J = n·sqrt(8 k_B T/(π m)) at a 600 K As4
-     * source, four atoms per molecule. Gauges differ by ±30 % or more; fit it for the lab's gauge.
+     * conversion: n = BEP/(eta·k_B·300 K) with the ion-gauge sensitivity eta = 0.6·Z/14 + 0.4 = 6.057 for As4
+     * (the form closer to Summers' measured sensitivities, NASA TN D-5285 (1969)), J = n·sqrt(8 k_B T/(π m))
+     * at a 600 K As4 source, four atoms per molecule. Gauges differ by ±30 % or more; fit it for the lab's gauge.
      */
-    public static final double DEFAULT_ETCHING_FLUX_THRESHOLD = 6.06e13;
+    public static final double DEFAULT_ETCHING_FLUX_THRESHOLD = 4.38e13;
 
     /**
      * Default width of the flux threshold in ln J, 0.5: no published value; a factor of 1.65 in flux moves
@@ -261,8 +261,8 @@ public final class DropletCrystallizationModel implements GrowthModel {
                     "width of the etching onset in temperature"),
             ModelParameter.continuous(ETCHING_FLUX_THRESHOLD, "cm^-2 s^-1", DEFAULT_ETCHING_FLUX_THRESHOLD, 1e10,
                     1e17, true,
-                    "1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014), converted with the Summers gauge "
-                            + "sensitivity and a 600 K source (rough, ±30 %)",
+                    "1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014), converted with the ion-gauge "
+                            + "electron-count sensitivity and a 600 K source (rough, ±30 %)",
                     "group-V atom flux below which droplets etch instead of crystallising"),
             ModelParameter.continuous(ETCHING_FLUX_WIDTH, "", DEFAULT_ETCHING_FLUX_WIDTH, 0.05, 3, true,
                     "no published value; fitted from the lab's runs",

@@ -19,7 +19,7 @@ import java.util.Optional;
  *
  * <p>Group-V flux: when the campaign has a {@code group_v_bep} setting and no {@code group_v_flux}
  * setting, the flux is estimated with {@link BeamFlux#absolute(BeamReading)} (ion-gauge density,
- * Summers' sensitivity, effusive mean speed at the species' default source temperature). That
+ * the ion-gauge electron-count sensitivity, effusive mean speed at the species' default source temperature). That
  * estimate is uncertain by about a factor of 2; the models' fitted cut points absorb a constant
  * factor. Without a species setting the species is {@link #defaultSpecies(String)}.
  *

@@ -275,10 +275,13 @@ public final class CampaignReader {
             return new Object[2];
         }
         MaterialSpec spec = new MaterialSpec(substrate, deposit, groupV);
+        String surfaceGroupV = groupV != null ? groupV : compound.groupV();
         Surface s = new Surface(substrate, compound.monolayerHeightNm(), compound.sitesPerCm2(), deposit,
                 metal == null ? Double.NaN : metal.meltingK(),
                 metal == null ? Double.NaN : metal.liquidAtomsPerNm3(),
-                groupV != null ? groupV : compound.groupV());
+                surfaceGroupV,
+                metal == null ? Double.NaN : metal.supercoolingLimitK(),
+                Materials.crystal(deposit, surfaceGroupV).map(Compound::cationsPerNm3).orElse(Double.NaN));
         return new Object[] {spec, s};
     }
 

@@ -123,24 +123,7 @@ final class FoldPredictions {
 
     /** The chain's class probabilities in campaign order, floored and renormalised, or null. */
     static double[] physicsProbabilities(OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return null;
-        }
-        Map<String, Double> m = r.probabilities().get(o.role());
-        if (m == null) {
-            return null;
-        }
-        double[] p = new double[o.classes().size()];
-        double sum = 0;
-        for (int k = 0; k < p.length; k++) {
-            Double v = m.get(o.classes().get(k));
-            p[k] = Math.max(v == null || !Double.isFinite(v) ? 0 : v, ClassModel.PROBABILITY_FLOOR);
-            sum += p[k];
-        }
-        for (int k = 0; k < p.length; k++) {
-            p[k] /= sum;
-        }
-        return p;
+        return CampaignSurrogate.physicsClassProbabilities(o, r);
     }
 
     /**

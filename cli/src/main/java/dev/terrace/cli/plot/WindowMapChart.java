@@ -110,7 +110,7 @@ final class WindowMapChart {
                 WindowMap.WINDOW_THRESHOLD), xp, yp));
         List<double[]> plainWindow = map.robust() ? Contours.chain(toData(Contours.segments(padded(map.plainYield()),
                 ux, uy, WindowMap.WINDOW_THRESHOLD), xp, yp)) : List.of();
-        List<double[]> classEdges = classEdges(map);
+        List<double[]> classEdges = classEdges(map, ux, uy);
         MapLayerRenderer cellRenderer = new MapLayerRenderer(map, scale, classEdges, window, plainWindow);
         ValueAxis xAxis = axis(xp);
         ValueAxis yAxis = axis(yp);
@@ -452,26 +452,21 @@ final class WindowMapChart {
         return out;
     }
 
-    /** Cell edges where the most likely class changes, as segments in data units. */
-    static List<double[]> classEdges(WindowMapResult map) {
-        List<double[]> out = new ArrayList<>();
-        if (map.classOutcome() == null) {
-            return out;
+    /**
+     * Boundaries between the most likely classes as smooth contours: marching squares over the
+     * predicted class probabilities (see {@link Contours#classBoundaries}) on the cell centres,
+     * padded like the window's edge so a boundary runs on to the box's border; polylines in data units.
+     */
+    static List<double[]> classEdges(WindowMapResult map, double[] ux, double[] uy) {
+        double[][][] p = map.classProbability();
+        if (map.classOutcome() == null || p == null) {
+            return new ArrayList<>();
         }
-        double[] xe = map.xEdges();
-        double[] ye = map.yEdges();
-        for (int j = 0; j < map.ny(); j++) {
-            for (int i = 0; i < map.nx(); i++) {
-                String c = map.likelyClassAt(i, j);
-                if (i + 1 < map.nx() && !c.equals(map.likelyClassAt(i + 1, j))) {
-                    out.add(new double[] {xe[i + 1], ye[j], xe[i + 1], ye[j + 1]});
-                }
-                if (j + 1 < map.ny() && !c.equals(map.likelyClassAt(i, j + 1))) {
-                    out.add(new double[] {xe[i], ye[j + 1], xe[i + 1], ye[j + 1]});
-                }
-            }
+        double[][][] padded = new double[p.length][][];
+        for (int k = 0; k < p.length; k++) {
+            padded[k] = padded(p[k]);
         }
-        return out;
+        return Contours.chain(toData(Contours.classBoundaries(padded, ux, uy), map.x(), map.y()));
     }
 
     static List<double[]> toData(List<double[]> unitSegments, ParameterSpec xp, ParameterSpec yp) {

@@ -3,17 +3,14 @@ package dev.terrace.cli;
 import dev.terrace.core.Cautions;
 import dev.terrace.core.CensoredCells;
 import dev.terrace.core.CheckSummary;
-import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.Target;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
-import picocli.CommandLine.Parameters;
 
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 
@@ -27,24 +24,19 @@ final class CheckCommand implements Callable<Integer> {
     CommandLine.Model.CommandSpec spec;
 
     @Mixin
-    GlobalOptions global = new GlobalOptions();
-
-    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
-    Path campaignFile;
+    CampaignInput input = new CampaignInput();
 
     @Override
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        LoadedCampaign lc = LoadedCampaign.openAnySize(campaignFile, Registries.load(global, err));
-        print(lc, out, global.quiet);
+        LoadedCampaign lc = LoadedCampaign.openAnySize(input.file, Registries.load(input.global, err));
+        print(lc, out, input.global.quiet);
         TrackRecordSection.Result track = TrackRecordSection.print(lc, out);
-        for (Diagnostic d : lc.warnings()) {
-            err.println(d);
-        }
-        track.journal().warnings().forEach(err::println);
-        track.trackRecord().warnings().forEach(err::println);
-        out.println(NextStep.afterCheck(campaignFile, lc, track.journal()));
+        DiagnosticLines.print(err, lc.warnings());
+        DiagnosticLines.print(err, track.journal().warnings());
+        DiagnosticLines.print(err, track.trackRecord().warnings());
+        out.println(NextStep.afterCheck(input.file, lc, track.journal()));
         err.flush();
         out.flush();
         return 0;

@@ -1,6 +1,5 @@
 package dev.terrace.cli;
 
-import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.demo.DemoSeries;
 import picocli.CommandLine;
@@ -67,9 +66,7 @@ final class DemoCommand implements Callable<Integer> {
         dev.terrace.core.plugins.PluginRegistry reg = Registries.load(global, err);
         LoadedCampaign lc = LoadedCampaign.open(campaign, reg);
         CheckCommand.print(lc, out, global.quiet);
-        for (Diagnostic d : lc.warnings()) {
-            err.println(d);
-        }
+        DiagnosticLines.print(err, lc.warnings());
         out.println();
         out.println("== terrace fit " + campaign);
         dev.terrace.core.fit.FitResults.FitReport fit = dev.terrace.core.fit.ModelFitter.fit(lc, reg, FitCommand.DEFAULT_SEED);

@@ -70,8 +70,8 @@ public final class FluxCommand implements Callable<Integer> {
     /** {@code terrace flux ratio}: V/III flux ratio from two beam-equivalent pressures. */
     @Command(name = "ratio", mixinStandardHelpOptions = true,
             description = "V/III flux ratio from the beam-equivalent pressures (BEP) of a group-V and a group-III beam, "
-                    + "with rough absolute fluxes. The ion gauge's sensitivity to each species follows Summers' rule "
-                    + "(eta/eta_N2 = 0.4 Z/14 + 0.6); the result is about ±30 %% unless your gauge is calibrated "
+                    + "with rough absolute fluxes. The ion gauge's sensitivity to each species follows a rule linear in "
+                    + "its electrons per molecule (eta/eta_N2 = 0.6 Z/14 + 0.4); the result is about ±30 %% unless your gauge is calibrated "
                     + "for these species.")
     static final class Ratio implements Callable<Integer> {
 

@@ -231,7 +231,7 @@ public final class Main implements Runnable {
             }
         }
         if (e instanceof InputException) {
-            ((InputException) e).diagnostics().forEach(d -> err.println(d));
+            DiagnosticLines.print(err, ((InputException) e).diagnostics());
             if (debug) {
                 e.printStackTrace(err);
             }

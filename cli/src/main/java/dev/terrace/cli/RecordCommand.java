@@ -15,7 +15,6 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -37,10 +36,7 @@ final class RecordCommand implements Callable<Integer> {
     CommandLine.Model.CommandSpec spec;
 
     @Mixin
-    GlobalOptions global = new GlobalOptions();
-
-    @Parameters(index = "0", paramLabel = "CAMPAIGN", description = "The campaign YAML file.")
-    Path campaignFile;
+    CampaignInput input = new CampaignInput();
 
     @Parameters(index = "1..*", paramLabel = "NAME=VALUE",
             description = {"A cell of the new row: a setting (overrides the proposal's value, for when the chamber",
@@ -63,7 +59,8 @@ final class RecordCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         java.time.Clock clock = Main.clock(spec);
         Map<String, String> given = parse(values);
-        LoadedCampaign lc = LoadedCampaign.open(campaignFile, Registries.load(global, err));
+        // recording fits no model, so a log of any length (within the read limits) takes a new run
+        LoadedCampaign lc = LoadedCampaign.openAnySize(input.file, Registries.load(input.global, err));
         Campaign c = lc.campaign();
         Map<String, String> cells = new LinkedHashMap<>();
         List<String> overridden = new ArrayList<>();
@@ -107,12 +104,10 @@ final class RecordCommand implements Callable<Integer> {
         for (String o : overridden) {
             out.println("  setting as grown: " + o);
         }
-        for (Diagnostic d : a.warnings()) {
-            err.println(d);
-        }
+        DiagnosticLines.print(err, a.warnings());
         if (!dryRun) {
-            out.println(NextStep.afterRecord(campaignFile, a, followed != null));
-            if (!global.quiet) {
+            out.println(NextStep.afterRecord(input.file, a, followed != null));
+            if (!input.global.quiet) {
                 err.println(dev.terrace.core.Cautions.pointer(c));
             }
         }

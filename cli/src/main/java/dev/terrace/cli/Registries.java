@@ -1,6 +1,5 @@
 package dev.terrace.cli;
 
-import dev.terrace.core.plugins.PluginProblem;
 import dev.terrace.core.plugins.PluginRegistry;
 
 import java.io.PrintWriter;
@@ -25,9 +24,7 @@ final class Registries {
             }
         }
         PluginRegistry r = PluginRegistry.builder().pluginDir(dir).build();
-        for (PluginProblem p : r.problems()) {
-            err.println("terrace: " + p);
-        }
+        DiagnosticLines.print(err, r.problems().stream().map(p -> "terrace: " + p).toList());
         err.flush();
         return r;
     }

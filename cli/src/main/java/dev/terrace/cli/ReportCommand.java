@@ -10,7 +10,6 @@ import dev.terrace.cli.report.ReportContent.ScoreRow;
 import dev.terrace.cli.report.ReportContent.ScoreTable;
 import dev.terrace.cli.report.ReportContent.ValidationPanel;
 import dev.terrace.cli.report.ReportContent.WindowPanel;
-import dev.terrace.core.Diagnostic;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
@@ -122,9 +121,7 @@ final class ReportCommand implements Callable<Integer> {
             target = SafeFiles.target(out).replacing(force).protecting(lc.inputs());
             target.check();
             mapPairs(lc.campaign());
-            for (Diagnostic d : lc.warnings()) {
-                err.println(d);
-            }
+            DiagnosticLines.print(err, lc.warnings());
             ReportContent content = compute(lc, reg, bar, err, date);
             bar.step().message(PHASES.get(6));
             html = HtmlReport.render(content);

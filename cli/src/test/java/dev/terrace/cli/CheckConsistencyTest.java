@@ -1,6 +1,5 @@
 package dev.terrace.cli;
 
-import dev.terrace.demo.DemoCampaign;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -19,24 +18,14 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * log and the growth models are read together get a warning naming the column, role or key. The
  * demo campaign is invented data.
  */
-class CheckConsistencyTest {
+class CheckConsistencyTest extends CliFixtures {
 
     @TempDir
     Path tmp;
 
-    private Path demo() throws Exception {
-        return DemoCampaign.copyTo(tmp.resolve("demo"));
-    }
-
-    private static void edit(Path file, String from, String to) throws Exception {
-        String s = Files.readString(file, StandardCharsets.UTF_8);
-        assertTrue(s.contains(from), "fixture holds " + from);
-        Files.writeString(file, s.replace(from, to), StandardCharsets.UTF_8);
-    }
-
     @Test
     void theDemoHasNoneOfTheseWarnings() throws Exception {
-        CliTest.Outcome o = run("check", demo().toString(), "--quiet");
+        CliTest.Outcome o = run("check", demo(tmp).toString(), "--quiet");
         assertEquals(0, o.code(), o.err());
         assertFalse(o.err().contains("no run records"), o.err());
         assertFalse(o.err().contains("needs a setting"), o.err());
@@ -45,7 +34,7 @@ class CheckConsistencyTest {
 
     @Test
     void aSettingColumnMissingFromTheRunLogIsNamed() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         Path runs = campaign.resolveSibling("runs.csv");
         // drop the t_drop column (the second) from every row that is not a comment
         String cut = Files.readAllLines(runs, StandardCharsets.UTF_8).stream()
@@ -61,7 +50,7 @@ class CheckConsistencyTest {
 
     @Test
     void aModelWhoseRoleNoSettingHasIsNamedWithTheRole() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         edit(campaign, "role: substrate_temperature}", "}");
         CliTest.Outcome o = run("check", campaign.toString(), "--quiet");
         assertEquals(0, o.code(), o.err());
@@ -71,7 +60,7 @@ class CheckConsistencyTest {
 
     @Test
     void emptyTargetsAreFlaggedBecauseYieldWouldOnlyBeTheChanceOfSuccess() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         String s = Files.readString(campaign, StandardCharsets.UTF_8);
         int at = s.indexOf("targets:");
         int end = s.indexOf("\n\n", at);

@@ -1,6 +1,5 @@
 package dev.terrace.cli;
 
-import dev.terrace.demo.DemoCampaign;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -19,24 +18,14 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * characters on the terminal, and no echo of a file that is not a run log. Exit codes, positions
  * and unchanged inputs (SHA-256) are checked. The demo campaign is invented data.
  */
-class CheckGateCliTest {
+class CheckGateCliTest extends CliFixtures {
 
     @TempDir
     Path tmp;
 
-    private Path demo() throws Exception {
-        return DemoCampaign.copyTo(tmp.resolve("demo"));
-    }
-
-    private static void edit(Path file, String from, String to) throws Exception {
-        String s = Files.readString(file, StandardCharsets.UTF_8);
-        assertTrue(s.contains(from), "fixture holds " + from);
-        Files.writeString(file, s.replace(from, to), StandardCharsets.UTF_8);
-    }
-
     @Test
     void aControlCharacterInARunIdIsAPositionedErrorAndNoCommandPrintsItRaw() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         Path runs = campaign.resolveSibling("runs.csv");
         // ESC [ 2 J clears a VT100/ECMA-48 terminal (ECMA-48, 5th ed. 1991, 8.3.39 ED)
         edit(runs, "\nD02,", "\nD\u001b[2J02,");
@@ -53,7 +42,7 @@ class CheckGateCliTest {
 
     @Test
     void aRunsEntryPointingOutsideAtAFileThatIsNoRunLogEchoesOnlyAShortExcerpt() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         Path outside = Files.createDirectories(tmp.resolve("elsewhere")).resolve("passwd");
         String secret = "root:x:0:0:root:/root:/bin/bash\ndaemon:x:1:1:daemon:/usr/sbin:/usr/sbin/nologin\n";
         Files.writeString(outside, secret, StandardCharsets.UTF_8);
@@ -67,7 +56,7 @@ class CheckGateCliTest {
 
     @Test
     void minAboveMaxIsOneMessageEvenWhenALimitNamesTheSetting() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         edit(campaign, "t_drop:    {unit: degC, min: 150, max: 350,", "t_drop:    {unit: degC, min: 350, max: 150,");
         CliTest.Outcome o = run("check", campaign.toString(), "--quiet");
         assertEquals(2, o.code(), o.err());
@@ -77,7 +66,7 @@ class CheckGateCliTest {
 
     @Test
     void aProductOfTwoSettingsInALimitSaysLimitsMustBeLinear() throws Exception {
-        Path campaign = demo();
+        Path campaign = demo(tmp);
         edit(campaign, "  - t_cryst >= t_drop - 20", "  - t_cryst >= t_drop * ga_amount");
         CliTest.Outcome o = run("check", campaign.toString(), "--quiet");
         assertEquals(2, o.code(), o.err());

@@ -1,21 +1,14 @@
 package dev.terrace.cli;
 
-import dev.terrace.demo.DemoCampaign;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 import java.io.IOException;
-import java.io.PrintWriter;
 import java.io.RandomAccessFile;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.util.HexFormat;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.stream.Stream;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -25,38 +18,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
  * Each failure of the data-safety review: the exit code, a message naming the path or option and
  * what was expected, and the SHA-256 of every input file unchanged. The demo campaign is invented data.
  */
-class CliSafetyTest {
-
-    record Outcome(int code, String out, String err) {
-    }
-
-    static Outcome run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.execute(new PrintWriter(out, true), new PrintWriter(err, true), args);
-        return new Outcome(code, out.toString(), err.toString());
-    }
-
-    static String sha256(Path f) throws Exception {
-        return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(f)));
-    }
-
-    /** Hashes of every regular file in the folder (links followed), by name. */
-    static Map<String, String> hashes(Path dir) throws Exception {
-        Map<String, String> m = new LinkedHashMap<>();
-        try (Stream<Path> s = Files.list(dir).sorted()) {
-            for (Path p : s.toList()) {
-                if (Files.isRegularFile(p)) {
-                    m.put(p.getFileName().toString(), sha256(p));
-                }
-            }
-        }
-        return m;
-    }
-
-    static Path demo(Path tmp) throws Exception {
-        return DemoCampaign.copyTo(tmp.resolve("demo"));
-    }
+class CliSafetyTest extends CliFixtures {
 
     static void assertRefused(Outcome o, String... fragments) {
         assertEquals(2, o.code(), o.err());

@@ -4,8 +4,6 @@ import dev.terrace.demo.DemoCampaign;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -17,17 +15,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /** Runs the command line in-process and checks output and exit codes. */
-class CliTest {
-
-    record Outcome(int code, String out, String err) {
-    }
-
-    static Outcome run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.execute(new PrintWriter(out, true), new PrintWriter(err, true), args);
-        return new Outcome(code, out.toString(), err.toString());
-    }
+class CliTest extends CliFixtures {
 
     @Test
     void printsVersionAndHelp() {

@@ -177,6 +177,10 @@ public final class VirtualChamber {
     private final Species defaultSpecies;
 
     private VirtualChamber(Campaign campaign, Truth truth, long seed) {
+        this(campaign, truth, seed, seed);
+    }
+
+    private VirtualChamber(Campaign campaign, Truth truth, long seed, long scatterSeed) {
         this.campaign = Objects.requireNonNull(campaign, "campaign");
         this.truth = Objects.requireNonNull(truth, "truth");
         this.seed = seed;
@@ -186,7 +190,7 @@ public final class VirtualChamber {
                 settings.putIfAbsent(p.role(), p);
             }
         }
-        this.runStream = new SplittableRandom(seed);
+        this.runStream = new SplittableRandom(scatterSeed);
         this.densityField = new SmoothField(FIELD_DIMENSION, truth.nucleation().densityRoughness(), seed ^ DENSITY_SALT);
         this.shapeField = new SmoothField(FIELD_DIMENSION, truth.shape().roughness(), seed ^ SHAPE_SALT);
         this.filmField = new SmoothField(FIELD_DIMENSION, truth.film().roughness(), seed ^ FILM_SALT);
@@ -214,6 +218,19 @@ public final class VirtualChamber {
      */
     public static VirtualChamber of(Campaign campaign, Truth truth, long seed) {
         return new VirtualChamber(campaign, truth, seed);
+    }
+
+    /**
+     * The same chamber (same campaign, truth and the same smooth deviations of the truth, which
+     * {@code seed} fixes) with its own stream of run-to-run scatter: repeated runs of one recipe on
+     * it are further draws from the very distribution this chamber's runs come from. Use it to
+     * estimate a recipe's true chance of meeting spec without disturbing this chamber's stream.
+     *
+     * @param scatterSeed the seed of the new scatter stream
+     * @return the replica; never null. This chamber is unchanged.
+     */
+    public VirtualChamber replica(long scatterSeed) {
+        return new VirtualChamber(campaign, truth, seed, scatterSeed);
     }
 
     /** @return the campaign; never null */

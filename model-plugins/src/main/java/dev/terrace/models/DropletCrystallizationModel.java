@@ -35,16 +35,24 @@ import java.util.Set;
  *   P(class ≤ k) = logistic((c_k − ln Lambda) / width),  c_dot = dot_ring_cut, c_ring = c_dot + ring_disk_gap
  *   P(hole)  = logistic((T − T_etch)/w_T) · logistic((ln J_thr − ln J_V)/w_J)
  *   P(dot), P(ring), P(disk) = (1 − P(hole)) × the ordered (cumulative-link) probabilities
- *   diameter = 2 · (r + k · L_eff · (1 − P_ordered(dot))),   L_eff = L·S/(L + S),  S = N^(−1/2)/2
+ *   r_x      base radius of a spherical cap (same contact angle) holding the crystal volume
+ *            V_x = (θ·N0/N) / n_x,   n_x = 4/a³ group-III atoms per volume of the compound (zinc blende)
+ *   diameter = 2 · (r_x + k · L_eff · (1 − P_ordered(dot))),   L_eff = L·S/(L + S),  S = N^(−1/2)/2
  * </pre>
  * {@code θ} = {@link Role#COVERAGE}, {@code N} = {@link Role#ISLAND_DENSITY}, {@code J_V} =
  * {@link Role#GROUP_V_FLUX} (atoms cm^-2 s^-1), {@code T} = {@link Role#CRYSTALLIZATION_TEMPERATURE}, falling
  * back to {@link Role#SUBSTRATE_TEMPERATURE}. The sticking coefficient {@code s} depends on
  * {@link Role#GROUP_V_SPECIES}: tetramers (As4, Sb4, P4) use {@code tetramer_sticking}, dimers and atoms
- * {@code dimer_sticking}; when the species is not given a tetramer is assumed (and said in a note).
+ * {@code dimer_sticking}. When the species is not given (or not recognised) the model assumes the molecule
+ * of {@link Surface#defaultGroupVSpecies()} (As4, Sb4 or P2), the same one the core's BEP-to-flux conversion
+ * assumes, and says so in a note.
  *
- * <p><b>Diameter.</b> The predicted {@link Role#ISLAND_DIAMETER} is that of the crystallised feature: the
- * droplet base for dots, growing with the migration length for rings and disks. The spread is capped
+ * <p><b>Diameter.</b> The predicted {@link Role#ISLAND_DIAMETER} is that of the crystallised feature. A dot
+ * holds the droplet's metal atoms as the compound, so its volume is the droplet volume times the ratio of
+ * the cation densities of the liquid metal and of the compound (about 2.38 for Ga into GaAs, 2.05 for In into
+ * InAs, 2.40 for Al into AlAs); the dot is taken as a cap of the same contact angle, so its base is
+ * {@code ratio^(1/3)} times the droplet base (1.34 for Ga/GaAs). Rings and disks grow from that with the
+ * migration length. The spread is capped
  * smoothly at half the mean droplet spacing {@code S}, beyond which neighbouring features merge. Both
  * {@code L_eff} and {@code 1 − P_ordered(dot)} grow with the crystallisation temperature, so at a fixed
  * group-V flux and droplet density the diameter never decreases as that temperature rises. The hole
@@ -63,9 +71,16 @@ import java.util.Set;
  * memory; Zhou et al., APL (2010): the congruent-evaporation limit depends on the As flux). Mixed
  * features (holes inside rings) are not a class of their own.
  *
+ * <p><b>Metals.</b> Texts name the campaign's deposit metal. The defaults of the migration barrier and the
+ * etching onset are published for Ga on GaAs; for In and Al droplets no published values were found, so the
+ * Ga values are carried over and each prediction says so in a note until the lab's runs fit them.
+ *
  * <p><b>Validity.</b> Outside when a needed input is missing, when the deposit metal is solid at the
- * crystallisation temperature (no values then), when a droplet would hold less than one atom, or when
- * there is no group-V flux below the etching onset (nothing crystallises).
+ * crystallisation temperature (below the melting point a droplet is taken as a supercooled liquid down to
+ * the metal's supercooling limit, with a note; below that no values are given), when a droplet would hold
+ * less than one atom, or when there is no group-V flux below the etching onset (nothing crystallises). The
+ * crystallised diameter is not given when the compound of the deposit and the group-V element is not in the
+ * material table.
  *
  * @since 0.1
  */
@@ -112,7 +127,8 @@ public final class DropletCrystallizationModel implements GrowthModel {
 
     /**
      * Default metal migration barrier, 0.7 eV: Ga diffusion activation energy on GaAs(001) from ring size
-     * against crystallisation temperature, 0.7 ± 0.1 eV, Wang et al., Chin. Phys. B 29, 046801 (2020).
+     * against crystallisation temperature, 0.7 ± 0.1 eV, Wang et al., Chin. Phys. B 29, 046801 (2020). No
+     * published value was found for In or Al droplets; the Ga value is carried over for them (flagged in a note).
      */
     public static final double DEFAULT_MIGRATION_BARRIER_EV = 0.7;
 
@@ -164,6 +180,7 @@ public final class DropletCrystallizationModel implements GrowthModel {
     /**
      * Default etching onset, 843.15 K (570 °C): Ga local droplet etching of GaAs shown at 570-620 °C,
      * Heyn et al., Nanoscale Res. Lett. 9, 285 (2014) (citation from memory; values read in a copy of the text).
+     * Carried over for In and Al droplets (flagged in a note): no published onset for them was verified.
      */
     public static final double DEFAULT_ETCHING_ONSET_K = 843.15;
 
@@ -174,13 +191,13 @@ public final class DropletCrystallizationModel implements GrowthModel {
     public static final double DEFAULT_ETCHING_ONSET_WIDTH_K = 15;
 
     /**
-     * Default group-V atom flux below which droplets etch, 6.06e13 atoms cm^-2 s^-1: the As flux of a
+     * Default group-V atom flux below which droplets etch, 4.38e13 atoms cm^-2 s^-1: the As flux of a
      * 1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014: LDE with the As reading below 1e-7 Torr). Rough
-     * conversion: n = BEP/(eta·k_B·300 K) with the Summers ion-gauge sensitivity eta = 0.4·Z/14 + 0.6 = 4.371
-     * for As4 (NASA TN D-5285 (1969), coefficients from memory), J = n·sqrt(8 k_B T/(π m)) at a 600 K As4
-     * source, four atoms per molecule. Gauges differ by ±30 % or more; fit it for the lab's gauge.
+     * conversion: n = BEP/(eta·k_B·300 K) with the ion-gauge sensitivity eta = 0.6·Z/14 + 0.4 = 6.057 for As4
+     * (the form closer to Summers' measured sensitivities, NASA TN D-5285 (1969)), J = n·sqrt(8 k_B T/(π m))
+     * at a 600 K As4 source, four atoms per molecule. Gauges differ by ±30 % or more; fit it for the lab's gauge.
      */
-    public static final double DEFAULT_ETCHING_FLUX_THRESHOLD = 6.06e13;
+    public static final double DEFAULT_ETCHING_FLUX_THRESHOLD = 4.38e13;
 
     /**
      * Default width of the flux threshold in ln J, 0.5: no published value; a factor of 1.65 in flux moves
@@ -200,11 +217,15 @@ public final class DropletCrystallizationModel implements GrowthModel {
      */
     public static final double CONGRUENT_EVAPORATION_GAAS_K = 898.15;
 
+    /** The deposit metal whose published values the defaults are. */
+    static final String DEFAULTS_METAL = "Ga";
+
     private static final List<String> CLASSES = List.of(DOT, RING, DISK, HOLE);
 
     private static final List<ModelParameter> PARAMETERS = List.of(
             ModelParameter.continuous(MIGRATION_BARRIER, "eV", DEFAULT_MIGRATION_BARRIER_EV, 0.1, 2.0, false,
-                    "Wang et al., Chin. Phys. B 29, 046801 (2020): Ga on GaAs(001), 0.7 ± 0.1 eV",
+                    "Wang et al., Chin. Phys. B 29, 046801 (2020): Ga on GaAs(001), 0.7 ± 0.1 eV; "
+                            + "carried over for In and Al (no published value found)",
                     "barrier E_c of metal migration out of the droplet during crystallisation"),
             ModelParameter.continuous(ATTEMPT_FREQUENCY, "Hz", DEFAULT_ATTEMPT_FREQUENCY_HZ, 1e9, 1e15, true,
                     "common practice (lattice vibration frequency)",
@@ -232,15 +253,16 @@ public final class DropletCrystallizationModel implements GrowthModel {
                     "no published value; fitted from measured ring and disk diameters",
                     "growth of the feature radius per unit of migration length"),
             ModelParameter.continuous(ETCHING_ONSET_TEMPERATURE, "K", DEFAULT_ETCHING_ONSET_K, 700, 1000, false,
-                    "Heyn et al., Nanoscale Res. Lett. 9, 285 (2014) (citation from memory): Ga-LDE on GaAs at 570-620 °C",
+                    "Heyn et al., Nanoscale Res. Lett. 9, 285 (2014) (citation from memory): Ga-LDE on GaAs at "
+                            + "570-620 °C; carried over for In and Al (no published value verified)",
                     "substrate temperature above which droplets etch holes when group-V flux is low"),
             ModelParameter.continuous(ETCHING_ONSET_WIDTH, "K", DEFAULT_ETCHING_ONSET_WIDTH_K, 1, 100, false,
                     "no published value; about the uncertainty of substrate temperature readings (common practice)",
                     "width of the etching onset in temperature"),
             ModelParameter.continuous(ETCHING_FLUX_THRESHOLD, "cm^-2 s^-1", DEFAULT_ETCHING_FLUX_THRESHOLD, 1e10,
                     1e17, true,
-                    "1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014), converted with the Summers gauge "
-                            + "sensitivity and a 600 K source (rough, ±30 %)",
+                    "1e-7 Torr As4 flux-gauge reading (Heyn et al. 2014), converted with the ion-gauge "
+                            + "electron-count sensitivity and a 600 K source (rough, ±30 %)",
                     "group-V atom flux below which droplets etch instead of crystallising"),
             ModelParameter.continuous(ETCHING_FLUX_WIDTH, "", DEFAULT_ETCHING_FLUX_WIDTH, 0.05, 3, true,
                     "no published value; fitted from the lab's runs",
@@ -340,6 +362,7 @@ public final class DropletCrystallizationModel implements GrowthModel {
         if (solid.isPresent()) {
             return Prediction.notApplicable(solid.get());
         }
+        ModelSupport.supercooledNote(surface, t).ifPresent(notes::add);
 
         List<String> reasons = new ArrayList<>();
         double n0 = surface.sitesPerCm2();
@@ -348,9 +371,9 @@ public final class DropletCrystallizationModel implements GrowthModel {
             reasons.add("fewer than one metal atom per droplet (coverage " + ModelSupport.sig3(coverage)
                     + " ML at " + ModelSupport.sig3(density) + " cm^-2)");
         }
-        double radius = ModelSupport.capBaseRadiusNm(atoms, surface.liquidAtomDensityPerNm3().getAsDouble(),
-                parameters.get(CONTACT_ANGLE));
-        double sticking = sticking(conditions, parameters, notes);
+        double liquidDensity = surface.liquidAtomDensityPerNm3().getAsDouble();
+        double radius = ModelSupport.capBaseRadiusNm(atoms, liquidDensity, parameters.get(CONTACT_ANGLE));
+        double sticking = sticking(conditions, surface, parameters, notes);
 
         boolean noFlux = flux <= 0;
         double lnFlux = Math.log(Math.max(flux, FLUX_FLOOR));
@@ -379,6 +402,7 @@ public final class DropletCrystallizationModel implements GrowthModel {
 
         Map<Role, Double> values = new EnumMap<>(Role.class);
         String metal = surface.depositMetal().get();
+        carriedOverDefaults(metal, parameters).ifPresent(notes::add);
         if (noFlux) {
             if (hole < 0.5) {
                 reasons.add("with no group-V flux the " + metal + " droplets stay liquid below the etching onset ("
@@ -389,9 +413,17 @@ public final class DropletCrystallizationModel implements GrowthModel {
             double length = Math.exp(lnLength);
             double halfSpacing = 0.5 * ModelSupport.NM_PER_CM / Math.sqrt(density);
             double spread = length * halfSpacing / (length + halfSpacing);
-            values.put(Role.ISLAND_DIAMETER, 2 * (radius + parameters.get(SPREAD_FACTOR) * spread * (1.0 - upToDot)));
             notes.add(metal + " migration length during crystallisation about " + ModelSupport.sig3(length)
                     + " nm against a droplet base radius of " + ModelSupport.sig3(radius) + " nm");
+            if (surface.crystalCationDensityPerNm3().isPresent()) {
+                double crystalRadius = crystalBaseRadiusNm(atoms, liquidDensity,
+                        surface.crystalCationDensityPerNm3().getAsDouble(), parameters.get(CONTACT_ANGLE));
+                values.put(Role.ISLAND_DIAMETER,
+                        2 * (crystalRadius + parameters.get(SPREAD_FACTOR) * spread * (1.0 - upToDot)));
+            } else {
+                notes.add("the compound of " + metal + " and " + surface.groupV()
+                        + " is not in the material table; the crystallised diameter is not computed");
+            }
         }
         if ("GaAs".equals(surface.substrate()) && t > CONGRUENT_EVAPORATION_GAAS_K && starved > 0.5) {
             notes.add("above about " + ModelSupport.celsius(CONGRUENT_EVAPORATION_GAAS_K) + " GaAs evaporates "
@@ -429,21 +461,87 @@ public final class DropletCrystallizationModel implements GrowthModel {
         return 0.5 * (lnDiffusionNm2PerS + lnTau);
     }
 
-    private static double sticking(Conditions conditions, ParameterValues parameters, List<String> notes) {
-        Optional<String> species = conditions.category(Role.GROUP_V_SPECIES).map(String::trim);
-        if (species.isEmpty() || species.get().isEmpty()) {
-            notes.add("group-V species not given; tetramer (As4-like) sticking assumed");
+    /**
+     * Volume of the crystallised compound per volume of the liquid droplet it came from: each metal atom of
+     * the droplet becomes one cation of the compound, so the ratio is {@code n_liquid / n_crystal}.
+     *
+     * @param liquidAtomsPerNm3    atoms per nm^3 in the liquid metal; positive
+     * @param crystalCationsPerNm3 group-III atoms per nm^3 in the compound (4/a^3 for zinc blende); positive
+     * @return the volume ratio, for example about 2.38 for Ga into GaAs
+     */
+    public static double crystalToLiquidVolumeRatio(double liquidAtomsPerNm3, double crystalCationsPerNm3) {
+        if (!(liquidAtomsPerNm3 > 0) || !(crystalCationsPerNm3 > 0)) {
+            throw new IllegalArgumentException("atom densities must be positive");
+        }
+        return liquidAtomsPerNm3 / crystalCationsPerNm3;
+    }
+
+    /**
+     * Base radius of the crystallised dot: a spherical cap of the droplet's contact angle holding the droplet's
+     * metal atoms as the compound, that is the droplet's base radius times the cube root of
+     * {@link #crystalToLiquidVolumeRatio}.
+     *
+     * @param atoms                metal atoms in the droplet; positive
+     * @param liquidAtomsPerNm3    atoms per nm^3 in the liquid metal; positive
+     * @param crystalCationsPerNm3 group-III atoms per nm^3 in the compound; positive
+     * @param contactAngleDeg      contact angle in degrees, strictly between 0 and 180
+     * @return the dot's base radius in nm
+     */
+    public static double crystalBaseRadiusNm(double atoms, double liquidAtomsPerNm3, double crystalCationsPerNm3,
+                                             double contactAngleDeg) {
+        double ratio = crystalToLiquidVolumeRatio(liquidAtomsPerNm3, crystalCationsPerNm3);
+        return ModelSupport.capBaseRadiusNm(atoms, liquidAtomsPerNm3, contactAngleDeg) * Math.cbrt(ratio);
+    }
+
+    /**
+     * The group-V molecule whose sticking applies: the run's species, else the surface's default molecule
+     * ({@link Surface#defaultGroupVSpecies()}, the same table the BEP-to-flux conversion follows).
+     *
+     * @param species the run's species text, possibly empty
+     * @param surface the growth surface
+     * @return the spelling used, for example {@code "P2"}; empty when none is given and none is known
+     */
+    static Optional<String> assumedSpecies(Optional<String> species, Surface surface) {
+        Optional<String> given = species.map(String::trim).filter(s -> !s.isEmpty()).filter(DropletCrystallizationModel::recognised);
+        return given.isPresent() ? given : surface.defaultGroupVSpecies();
+    }
+
+    private static boolean recognised(String s) {
+        return s.matches("(As|Sb|P)[24]?");
+    }
+
+    private static double sticking(Conditions conditions, Surface surface, ParameterValues parameters,
+                                   List<String> notes) {
+        Optional<String> given = conditions.category(Role.GROUP_V_SPECIES).map(String::trim).filter(s -> !s.isEmpty());
+        Optional<String> used = assumedSpecies(given, surface);
+        if (used.isEmpty()) {
+            notes.add("group-V species not given and no default known for the group-V element; tetramer sticking assumed");
             return parameters.get(TETRAMER_STICKING);
         }
-        String s = species.get();
-        char last = s.charAt(s.length() - 1);
-        if (last == '4') {
-            return parameters.get(TETRAMER_STICKING);
+        String s = used.get();
+        if (given.isEmpty()) {
+            notes.add("group-V species not given; " + s + " assumed (the same molecule the BEP-to-flux conversion assumes)");
+        } else if (!given.get().equals(s)) {
+            notes.add("group-V species '" + given.get() + "' not recognised; " + s + " assumed");
         }
-        if (last == '2' || Character.isLetter(last)) {
-            return parameters.get(DIMER_STICKING);
+        return s.endsWith("4") ? parameters.get(TETRAMER_STICKING) : parameters.get(DIMER_STICKING);
+    }
+
+    private static Optional<String> carriedOverDefaults(String metal, ParameterValues parameters) {
+        if (DEFAULTS_METAL.equals(metal)) {
+            return Optional.empty();
         }
-        notes.add("group-V species '" + s + "' not recognised; tetramer sticking assumed");
-        return parameters.get(TETRAMER_STICKING);
+        List<String> carried = new ArrayList<>();
+        if (parameters.get(MIGRATION_BARRIER) == DEFAULT_MIGRATION_BARRIER_EV) {
+            carried.add(MIGRATION_BARRIER);
+        }
+        if (parameters.get(ETCHING_ONSET_TEMPERATURE) == DEFAULT_ETCHING_ONSET_K) {
+            carried.add(ETCHING_ONSET_TEMPERATURE);
+        }
+        if (carried.isEmpty()) {
+            return Optional.empty();
+        }
+        return Optional.of(String.join(" and ", carried) + " at the published Ga default: no published value for "
+                + metal + " droplets was found, so the Ga value is carried over; fit it from the lab's runs");
     }
 }

@@ -43,7 +43,8 @@ import java.util.Set;
  *
  * <p><b>Validity.</b> The prediction is marked outside when the deposit metal is solid at the substrate
  * temperature (In below 156.6 °C: Tuktamyshev et al., Nanomaterials 10, 1512 (2020) see the density law
- * break there; no values are given then), when {@code D/F} is below
+ * break there; no values are given then; Ga is taken as a supercooled liquid down to its supercooling
+ * limit, with a note, see {@link ModelSupport#solidDeposit}), when {@code D/F} is below
  * {@link NucleationLaw#MIN_HOP_TO_DEPOSITION_RATIO} (values capped at one island per site), or when the
  * surfactant shift drives the barrier to zero or below. Re-evaporation at high temperature is not
  * modelled and not flagged.
@@ -181,6 +182,7 @@ public final class IslandNucleationModel implements GrowthModel {
         NucleationLaw law = NucleationLaw.from(parameters, alpha);
         List<String> reasons = new ArrayList<>();
         List<String> notes = new ArrayList<>();
+        ModelSupport.supercooledNote(surface, t).ifPresent(notes::add);
 
         if (law.rawEffectiveBarrierEv(surfactant) <= 0) {
             reasons.add("the surfactant shift brings the diffusion barrier to "

@@ -165,7 +165,10 @@ final class ModelSupport {
     }
 
     /**
-     * The melting-point guard: a reason when the deposit metal is solid at the given temperature.
+     * The melting-point guard: a reason when the deposit metal is solid at the given temperature. Below the
+     * melting point a droplet is still taken as a supercooled liquid down to the surface's
+     * {@linkplain Surface#supercoolingLimitK() supercooling limit} (see {@link #supercooledNote}); below that
+     * limit, or below the melting point when no margin is known, the deposit is solid.
      *
      * @param surface      the growth surface
      * @param temperatureK the temperature of the step that assumes liquid droplets
@@ -177,10 +180,41 @@ final class ModelSupport {
             return Optional.empty();
         }
         double melt = surface.meltingPointK().getAsDouble();
-        if (temperatureK >= melt) {
+        double limit = liquidLimitK(surface);
+        if (temperatureK >= limit) {
             return Optional.empty();
         }
-        return Optional.of(surface.depositMetal().get() + " is solid below " + celsius(melt)
-                + " (recipe: " + celsius(temperatureK) + "); " + what + " does not apply");
+        String metal = surface.depositMetal().get();
+        String bound = limit < melt
+                ? "below its supercooling limit of " + celsius(limit) + " (melting point " + celsius(melt) + ")"
+                : "below its melting point of " + celsius(melt) + " (no supercooling margin is known for " + metal + ")";
+        return Optional.of(metal + " is solid " + bound + "; recipe: " + celsius(temperatureK) + ", outside the validity of "
+                + what + ", which assumes liquid droplets");
+    }
+
+    /**
+     * A note when the deposit is below its melting point but within its supercooling margin, so it is taken as
+     * a supercooled liquid.
+     *
+     * @param surface      the growth surface
+     * @param temperatureK the temperature of the step that assumes liquid droplets
+     * @return the note, empty when the deposit is above its melting point, solid, or unknown
+     */
+    static Optional<String> supercooledNote(Surface surface, double temperatureK) {
+        if (surface.depositMetal().isEmpty() || surface.meltingPointK().isEmpty()) {
+            return Optional.empty();
+        }
+        double melt = surface.meltingPointK().getAsDouble();
+        if (temperatureK >= melt || temperatureK < liquidLimitK(surface)) {
+            return Optional.empty();
+        }
+        return Optional.of(surface.depositMetal().get() + " at " + celsius(temperatureK) + " is below its melting point ("
+                + celsius(melt) + ") and taken as a supercooled liquid (supercooling limit "
+                + celsius(liquidLimitK(surface)) + ")");
+    }
+
+    private static double liquidLimitK(Surface surface) {
+        double melt = surface.meltingPointK().getAsDouble();
+        return Math.min(melt, surface.supercoolingLimitK().orElse(melt));
     }
 }

@@ -7,8 +7,8 @@ import java.util.Map;
  * because the plugins may not depend on the core.
  *
  * <p>The ion gauge measures the beam's number density, {@code n = BEP/(eta·k_B·T_gauge)} with the Summers
- * sensitivity relative to N2, {@code eta = 0.4·Z/14 + 0.6} (R. L. Summers, NASA TN D-5285 (1969);
- * coefficients from memory, widely quoted), {@code Z} the electrons per molecule and {@code T_gauge = 300 K}.
+ * sensitivity relative to N2, {@code eta = 0.6·Z/14 + 0.4} (the form of the electron-count rule closer to
+ * the measured sensitivities compiled by R. L. Summers, NASA TN D-5285 (1969); see the core's IonGaugeTest), {@code Z} the electrons per molecule and {@code T_gauge = 300 K}.
  * The molecule flux is {@code n·sqrt(8 k_B T_source/(π m))}, the atom flux that times the atoms per
  * molecule. Source temperatures: 600 K for tetramers and 1150 K for cracked dimers (common practice).
  */
@@ -43,13 +43,13 @@ final class RoughBeamFlux {
     }
 
     /**
-     * Summers ion-gauge sensitivity relative to N2.
+     * Ion-gauge sensitivity relative to N2 by the electron-count rule.
      *
      * @param electrons electrons per molecule
      * @return eta
      */
     static double ionisationEfficiency(double electrons) {
-        return 0.4 * electrons / 14.0 + 0.6;
+        return 0.6 * electrons / 14.0 + 0.4;
     }
 
     /**

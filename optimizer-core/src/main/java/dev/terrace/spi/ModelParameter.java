@@ -33,13 +33,13 @@ public record ModelParameter(String name, String unit, double defaultValue, doub
 
     /**
      * Shared meanings used by the bundled plugins: the contact angle of a liquid metal droplet on the
-     * substrate (degrees), and the surface diffusion barrier (eV) and attempt frequency (Hz) of a
-     * deposited adatom.
+     * substrate (degrees), the surface diffusion barrier (eV) and attempt frequency (Hz) of a deposited
+     * adatom, and the change of that barrier at a full surfactant layer (eV).
      *
      * @since 0.2
      */
     public static final List<String> MEANING_KEYS = List.of("droplet_contact_angle", "adatom_diffusion_barrier",
-            "adatom_attempt_frequency");
+            "adatom_attempt_frequency", "surfactant_diffusion_shift");
 
     /** Checks the invariants. */
     public ModelParameter {

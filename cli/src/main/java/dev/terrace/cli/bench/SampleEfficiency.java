@@ -205,7 +205,8 @@ public final class SampleEfficiency {
 
     /** The chamber's true probability that one run of the recipe succeeds and meets every target. */
     static double trueYield(Campaign c, Map<String, Double> nums, Map<String, String> cats, long seed) {
-        VirtualChamber mc = VirtualChamber.of(c, seed ^ 0x5DEECE66DL ^ nums.hashCode() ^ cats.hashCode());
+        // the chamber that grows the runs (same truth and smooth deviations), with its own scatter stream
+        VirtualChamber mc = VirtualChamber.of(c, seed).replica(seed ^ 0x5DEECE66DL ^ nums.hashCode() ^ cats.hashCode());
         int hit = 0;
         for (int k = 0; k < TRUE_YIELD_SAMPLES; k++) {
             if (meetsSpec(c, mc.run(nums, cats))) {

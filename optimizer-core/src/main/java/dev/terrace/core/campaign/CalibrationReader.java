@@ -1,19 +1,15 @@
 package dev.terrace.core.campaign;
 
-import dev.terrace.core.Diagnostic;
 import dev.terrace.core.DidYouMean;
 import dev.terrace.core.units.Units;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
-import org.yaml.snakeyaml.nodes.ScalarNode;
 import org.yaml.snakeyaml.nodes.SequenceNode;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Collection;
-import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
@@ -21,6 +17,8 @@ import java.util.Map;
 import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+
+import static dev.terrace.core.campaign.YamlNodes.pos;
 
 /**
  * Reads the {@code temperature_calibration:} and {@code priors:} sections of a campaign file for
@@ -53,31 +51,32 @@ final class CalibrationReader {
     private static final Pattern QUANTITY = Pattern.compile("\\s*([-+]?[0-9]*\\.?[0-9]+(?:[eE][-+]?[0-9]+)?)\\s*([A-Za-z]\\S*)\\s*");
     private static final Pattern EVENT = Pattern.compile("[A-Za-z][A-Za-z0-9_\\-]*");
 
+    private final YamlNodes yaml;
     private final Path file;
-    private final List<Diagnostic> problems;
 
-    CalibrationReader(Path file, List<Diagnostic> problems) {
-        this.file = file;
-        this.problems = problems;
+    /** @param yaml the campaign file's nodes and problem list; never null */
+    CalibrationReader(YamlNodes yaml) {
+        this.yaml = yaml;
+        this.file = yaml.file();
     }
 
     /** Reads the calibration section; null when it has errors (already reported). */
     TemperatureCalibration calibration(Node n) {
         if (!(n instanceof MappingNode)) {
-            error(n, "temperature_calibration expects a mapping {points: [...], fit_offset: true|false}");
+            yaml.error(n, "temperature_calibration expects a mapping {points: [...], fit_offset: true|false}");
             return null;
         }
-        Map<String, NodeTuple> m = entries((MappingNode) n, SECTION_KEYS, "temperature_calibration key");
+        Map<String, NodeTuple> m = yaml.entries((MappingNode) n, SECTION_KEYS, "temperature_calibration key");
         boolean ok = true;
         boolean fitOffset = false;
         NodeTuple fo = m.get("fit_offset");
         if (fo != null) {
-            String s = scalar(fo.getValueNode(), "fit_offset");
+            String s = yaml.scalar(fo.getValueNode(), "fit_offset");
             if ("true".equals(s) || "false".equals(s)) {
                 fitOffset = Boolean.parseBoolean(s);
             } else {
                 if (s != null) {
-                    error(fo.getValueNode(), "fit_offset must be true or false, found '" + s + "'");
+                    yaml.error(fo.getValueNode(), "fit_offset must be true or false, found '" + s + "'");
                 }
                 ok = false;
             }
@@ -85,12 +84,12 @@ final class CalibrationReader {
         NodeTuple pt = m.get("points");
         List<CalibrationPoint> points = new ArrayList<>();
         if (pt == null) {
-            error(n, "temperature_calibration needs points: a list of observed reference events, each with"
+            yaml.error(n, "temperature_calibration needs points: a list of observed reference events, each with"
                     + " event and reading (for example {event: gaas_oxide_desorption, reading: 562 degC})");
             return null;
         }
         if (!(pt.getValueNode() instanceof SequenceNode seq) || seq.getValue().isEmpty()) {
-            error(pt.getValueNode(), "points must be a list of at least one {event: ..., reading: ...}");
+            yaml.error(pt.getValueNode(), "points must be a list of at least one {event: ..., reading: ...}");
             return null;
         }
         for (Node item : seq.getValue()) {
@@ -106,28 +105,28 @@ final class CalibrationReader {
 
     private CalibrationPoint point(Node item) {
         if (!(item instanceof MappingNode)) {
-            error(item, "a calibration point is a mapping {event: ..., reading: ...}");
+            yaml.error(item, "a calibration point is a mapping {event: ..., reading: ...}");
             return null;
         }
-        Map<String, NodeTuple> m = entries((MappingNode) item, POINT_KEYS, "calibration point key");
+        Map<String, NodeTuple> m = yaml.entries((MappingNode) item, POINT_KEYS, "calibration point key");
         NodeTuple et = m.get("event");
         if (et == null) {
-            error(item, "calibration point needs event: one of " + String.join(", ", ReferenceEvent.keys())
+            yaml.error(item, "calibration point needs event: one of " + String.join(", ", ReferenceEvent.keys())
                     + " or a name of your own (then with true, uncertainty and source)");
             return null;
         }
-        String event = scalar(et.getValueNode(), "event");
+        String event = yaml.scalar(et.getValueNode(), "event");
         if (event == null) {
             return null;
         }
         if (!EVENT.matcher(event).matches()) {
-            error(et.getValueNode(), "event '" + event + "' must be a name: a letter, then letters, digits, '_' or '-'");
+            yaml.error(et.getValueNode(), "event '" + event + "' must be a name: a letter, then letters, digits, '_' or '-'");
             return null;
         }
         var builtIn = ReferenceEvent.byKey(event);
         NodeTuple rt = m.get("reading");
         if (rt == null) {
-            error(item, "calibration point '" + event + "' needs reading: the temperature the thermocouple or"
+            yaml.error(item, "calibration point '" + event + "' needs reading: the temperature the thermocouple or"
                     + " pyrometer showed (for example 562 degC)");
             return null;
         }
@@ -139,7 +138,7 @@ final class CalibrationReader {
             for (String k : List.of("true", "uncertainty", "source")) {
                 if (m.containsKey(k)) {
                     ReferenceEvent e = builtIn.get();
-                    error(m.get(k).getKeyNode(), "'" + k + "' is built in for " + e.key() + " ("
+                    yaml.error(m.get(k).getKeyNode(), "'" + k + "' is built in for " + e.key() + " ("
                             + String.format(Locale.ROOT, "%.4f", e.trueKelvin() - Units.KELVIN_OFFSET).replaceAll("0+$", "")
                             + " degC, " + e.source() + "); remove it, or give the event a name of your own");
                     return null;
@@ -159,16 +158,16 @@ final class CalibrationReader {
         if (!missing.isEmpty()) {
             String hint = DidYouMean.suggest(event, ReferenceEvent.keys())
                     .map(s -> " (did you mean the built-in '" + s + "'?)").orElse("");
-            error(et.getValueNode(), "'" + event + "' is not a built-in event (" + String.join(", ", ReferenceEvent.keys())
+            yaml.error(et.getValueNode(), "'" + event + "' is not a built-in event (" + String.join(", ", ReferenceEvent.keys())
                     + ")" + hint + "; a custom event needs " + String.join(", ", missing)
                     + " (the accepted true temperature, its standard uncertainty and where it comes from)");
             return null;
         }
         Double trueK = temperature(m.get("true").getValueNode(), "true");
         Double trueU = difference(m.get("uncertainty").getValueNode(), "uncertainty");
-        String source = scalar(m.get("source").getValueNode(), "source");
+        String source = yaml.scalar(m.get("source").getValueNode(), "source");
         if (source != null && source.isBlank()) {
-            error(m.get("source").getValueNode(), "source must say where the true value comes from");
+            yaml.error(m.get("source").getValueNode(), "source must say where the true value comes from");
             source = null;
         }
         if (reading == null || readingU == null || trueK == null || trueU == null || source == null) {
@@ -179,23 +178,23 @@ final class CalibrationReader {
 
     /** A temperature with its unit, in kelvin; null when bad (reported). */
     private Double temperature(Node n, String key) {
-        String s = scalar(n, key);
+        String s = yaml.scalar(n, key);
         if (s == null) {
             return null;
         }
         Matcher mt = QUANTITY.matcher(s);
         if (!mt.matches()) {
-            error(n, key + " must be a temperature with its unit, such as 562 degC or 835 K; found '" + s + "'");
+            yaml.error(n, key + " must be a temperature with its unit, such as 562 degC or 835 K; found '" + s + "'");
             return null;
         }
         var u = Units.bySymbol(mt.group(2)).filter(x -> x.quantity() == dev.terrace.spi.Quantity.TEMPERATURE);
         if (u.isEmpty()) {
-            error(n, key + ": unit '" + mt.group(2) + "' is not a temperature unit; expected degC or K");
+            yaml.error(n, key + ": unit '" + mt.group(2) + "' is not a temperature unit; expected degC or K");
             return null;
         }
         double k = u.get().toCanonical(Double.parseDouble(mt.group(1)), 1);
         if (!(k > 0) || !Double.isFinite(k)) {
-            error(n, key + " " + s + " is not physical (at or below 0 K)");
+            yaml.error(n, key + " " + s + " is not physical (at or below 0 K)");
             return null;
         }
         return k;
@@ -203,18 +202,18 @@ final class CalibrationReader {
 
     /** A temperature difference (an uncertainty) in K or degC, in kelvin; null when bad (reported). */
     private Double difference(Node n, String key) {
-        String s = scalar(n, key);
+        String s = yaml.scalar(n, key);
         if (s == null) {
             return null;
         }
         Matcher mt = QUANTITY.matcher(s);
         if (!mt.matches() || !(mt.group(2).equals("K") || mt.group(2).equals("degC"))) {
-            error(n, key + " must be a temperature difference with its unit, such as 3 K; found '" + s + "'");
+            yaml.error(n, key + " must be a temperature difference with its unit, such as 3 K; found '" + s + "'");
             return null;
         }
         double v = Double.parseDouble(mt.group(1));
         if (!(v >= 0) || !Double.isFinite(v)) {
-            error(n, key + " must not be negative, found '" + s + "'");
+            yaml.error(n, key + " must not be negative, found '" + s + "'");
             return null;
         }
         return v;
@@ -228,82 +227,41 @@ final class CalibrationReader {
     List<PriorSource> priors(Node n) {
         List<PriorSource> out = new ArrayList<>();
         if (!(n instanceof SequenceNode)) {
-            error(n, "priors must be a list of earlier campaign files, such as [../spring-series/campaign.yaml]");
+            yaml.error(n, "priors must be a list of earlier campaign files, such as [../spring-series/campaign.yaml]");
             return out;
         }
         Path dir = file.toAbsolutePath().getParent();
         Set<Path> seen = new LinkedHashSet<>();
         for (Node item : ((SequenceNode) n).getValue()) {
-            String s = scalar(item, "a priors entry");
+            String s = yaml.scalar(item, "a priors entry");
             if (s == null) {
                 continue;
             }
             if (s.isBlank()) {
-                error(item, "priors holds an empty entry; expected the path of an earlier campaign file");
+                yaml.error(item, "priors holds an empty entry; expected the path of an earlier campaign file");
                 continue;
             }
             Path p;
             try {
                 p = (dir == null ? Path.of(s.strip()) : dir.resolve(s.strip())).normalize();
             } catch (java.nio.file.InvalidPathException e) {
-                error(item, "'" + s + "' is not a usable file path: " + e.getReason());
+                yaml.error(item, "'" + s + "' is not a usable file path: " + e.getReason());
                 continue;
             }
             if (p.equals(file.toAbsolutePath().normalize())) {
-                error(item, "priors names this campaign file itself; a campaign cannot be its own prior");
+                yaml.error(item, "priors names this campaign file itself; a campaign cannot be its own prior");
                 continue;
             }
             if (!seen.add(p)) {
-                error(item, "'" + s + "' appears twice in priors");
+                yaml.error(item, "'" + s + "' appears twice in priors");
                 continue;
             }
             if (!Files.isRegularFile(p)) {
-                error(item, "prior campaign file not found: " + p);
+                yaml.error(item, "prior campaign file not found: " + p);
                 continue;
             }
             out.add(new PriorSource(p, s.strip(), pos(item)));
         }
         return out;
-    }
-
-    // ------------------------------------------------------------------ helpers
-
-    private String scalar(Node n, String what) {
-        if (!(n instanceof ScalarNode)) {
-            error(n, what + " must be a single value, not a " + (n instanceof SequenceNode ? "list" : "mapping"));
-            return null;
-        }
-        return ((ScalarNode) n).getValue();
-    }
-
-    private Map<String, NodeTuple> entries(MappingNode m, Collection<String> allowed, String what) {
-        Map<String, NodeTuple> out = new LinkedHashMap<>();
-        for (NodeTuple t : m.getValue()) {
-            if (!(t.getKeyNode() instanceof ScalarNode)) {
-                error(t.getKeyNode(), what + " must be a plain name");
-                continue;
-            }
-            String k = ((ScalarNode) t.getKeyNode()).getValue();
-            if (out.containsKey(k)) {
-                error(t.getKeyNode(), "duplicate " + what + " '" + k + "' (first at line "
-                        + (out.get(k).getKeyNode().getStartMark().getLine() + 1) + ")");
-                continue;
-            }
-            if (!allowed.contains(k)) {
-                error(t.getKeyNode(), "unknown " + what + " '" + k + "'; expected one of " + String.join(", ", allowed)
-                        + DidYouMean.suggest(k, allowed).map(s -> " (did you mean '" + s + "'?)").orElse(""));
-                continue;
-            }
-            out.put(k, t);
-        }
-        return out;
-    }
-
-    private static SourcePosition pos(Node n) {
-        return new SourcePosition(n.getStartMark().getLine() + 1, n.getStartMark().getColumn() + 1);
-    }
-
-    private void error(Node n, String message) {
-        problems.add(Diagnostic.error(file, n.getStartMark().getLine() + 1, n.getStartMark().getColumn() + 1, message));
     }
 }

@@ -83,8 +83,7 @@ public record CampaignFit(FitReport report, OffsetResult offset, List<ParameterP
         SeriesPriors.Loaded loaded = SeriesPriors.load(lc.campaign(), registry, seed);
         List<ParameterPrior> priors = loaded.priors();
         TemperatureCalibration cal = lc.campaign().temperatureCalibration();
-        OffsetResult offset = cal.fitOffset() ? profile(lc, registry, seed, priors)
-                : OffsetResult.fromPoints(cal.estimate());
+        OffsetResult offset = offset(lc, registry, seed, priors);
         LoadedCampaign at = withOffset(lc, offset.value());
         FitReport report = ModelFitter.fit(at, registry, seed, true, priors);
         List<PriorCheck> checks = new ArrayList<>();
@@ -110,8 +109,31 @@ public record CampaignFit(FitReport report, OffsetResult offset, List<ParameterP
         return null;
     }
 
-    /** The campaign with a given offset applied to its substrate-temperature readings. */
-    static LoadedCampaign withOffset(LoadedCampaign lc, double offsetK) {
+    /**
+     * The campaign with its thermocouple offset as {@link #run} settles it: fitted by the profile
+     * likelihood when the campaign asks for it ({@code fit_offset: true}), else from the calibration
+     * points; the same offset then enters every prediction made with this campaign.
+     *
+     * @param lc       the campaign and the runs the offset is fitted on
+     * @param registry the growth models
+     * @param seed     seed of the fits
+     * @param priors   the earlier series' priors; never null
+     * @return the offset; never null
+     */
+    public static OffsetResult offset(LoadedCampaign lc, PluginRegistry registry, long seed,
+                                      List<ParameterPrior> priors) {
+        TemperatureCalibration cal = lc.campaign().temperatureCalibration();
+        return cal.fitOffset() ? profile(lc, registry, seed, priors) : OffsetResult.fromPoints(cal.estimate());
+    }
+
+    /**
+     * The campaign with a given offset applied to its substrate-temperature readings.
+     *
+     * @param lc      the campaign and its runs
+     * @param offsetK the offset, K
+     * @return the campaign with that offset; {@code lc} itself when nothing changes
+     */
+    public static LoadedCampaign withOffset(LoadedCampaign lc, double offsetK) {
         Campaign c = lc.campaign();
         if (!c.temperatureCalibration().estimate().isCalibrated() && offsetK == 0) {
             return lc;

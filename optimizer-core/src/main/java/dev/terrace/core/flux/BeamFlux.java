@@ -17,7 +17,7 @@ import java.util.Objects;
  *
  * <ul>
  *   <li>Ratios: J_a/J_b = (P_a/P_b) (&eta;_b/&eta;_a) sqrt(T_a M_b / (T_b M_a)). The gauge's
- *       geometry and calibration cancel, leaving the &plusmn;30 % of Summers' rule
+ *       geometry and calibration cancel, leaving the &plusmn;30 % of the ion-gauge electron-count rule
  *       ({@link IonGauge#DEFAULT_RELATIVE_UNCERTAINTY}). This is the usual way MBE growers turn
  *       a BEP ratio into a flux ratio [practice].</li>
  *   <li>Absolute values: n = BEP / (&eta; k<sub>B</sub> T<sub>gauge</sub>), with the gauge's
@@ -143,7 +143,7 @@ public final class BeamFlux {
 
     /**
      * Rough arrival rate of atoms per (001) surface site per second for a beam given only by
-     * species and BEP, at the species' default source temperature and with Summers' sensitivity.
+     * species and BEP, at the species' default source temperature and with the ion-gauge electron-count sensitivity.
      * This is what growth models use for the group-V supply.
      *
      * @param species  the beam species; never null

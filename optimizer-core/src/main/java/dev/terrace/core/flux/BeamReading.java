@@ -11,7 +11,7 @@ import java.util.Objects;
  * @param sourceTemperatureK the temperature of the zone the molecules last equilibrated in (the
  *                           cracker zone of a cracker, the cell otherwise), in K; positive
  * @param sensitivity        the gauge's ionisation efficiency for this species relative to N2;
- *                           positive. {@link #of(Species, double)} uses Summers' rule
+ *                           positive. {@link #of(Species, double)} uses the ion-gauge electron-count rule
  * @param temperatureDefaulted true when the source temperature is the species' [practice] default
  * @since 0.1
  */
@@ -35,7 +35,7 @@ public record BeamReading(Species species, double bepPa, double sourceTemperatur
     }
 
     /**
-     * A reading at the species' default source temperature, with Summers' sensitivity.
+     * A reading at the species' default source temperature, with the ion-gauge electron-count sensitivity.
      *
      * @param species the species; never null
      * @param bepPa   the beam-equivalent pressure in Pa; positive
@@ -47,7 +47,7 @@ public record BeamReading(Species species, double bepPa, double sourceTemperatur
     }
 
     /**
-     * A reading at a given source temperature, with Summers' sensitivity.
+     * A reading at a given source temperature, with the ion-gauge electron-count sensitivity.
      *
      * @param species            the species; never null
      * @param bepPa              the beam-equivalent pressure in Pa; positive
@@ -59,7 +59,7 @@ public record BeamReading(Species species, double bepPa, double sourceTemperatur
     }
 
     /**
-     * The same reading with a calibrated gauge sensitivity in place of Summers' rule.
+     * The same reading with a calibrated gauge sensitivity in place of the ion-gauge electron-count rule.
      *
      * @param relativeSensitivity &eta;/&eta;<sub>N2</sub> measured for this gauge and species; positive
      * @return a new reading; never null

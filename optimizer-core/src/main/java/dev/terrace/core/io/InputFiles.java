@@ -5,6 +5,8 @@ import dev.terrace.core.InputException;
 
 import java.io.IOException;
 import java.io.InputStream;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -81,20 +83,8 @@ public final class InputFiles {
      * @throws IOException         on other read failures
      */
     public static byte[] read(Path file, Kind kind) throws IOException, InputException {
-        Objects.requireNonNull(file, "file");
-        Objects.requireNonNull(kind, "kind");
-        BasicFileAttributes a = Files.readAttributes(file, BasicFileAttributes.class); // follows links
-        if (a.isDirectory()) {
-            throw refuse(file, 0, "the " + kind.what() + " is a folder; expected " + kind.expected());
-        }
-        if (!a.isRegularFile()) {
-            throw refuse(file, 0, "the " + kind.what() + " is not a regular file (a device, FIFO or socket);"
-                    + " expected " + kind.expected());
-        }
-        if (a.size() > kind.maxBytes()) {
-            throw tooBig(file, kind);
-        }
-        byte[] buf = new byte[(int) Math.min(Math.max(a.size() + 1, 8192), kind.maxBytes() + 1)];
+        long size = requireRegular(file, kind);
+        byte[] buf = new byte[(int) Math.min(Math.max(size + 1, 8192), kind.maxBytes() + 1)];
         int n = 0;
         try (InputStream in = Files.newInputStream(file)) {
             while (true) {
@@ -113,6 +103,74 @@ public final class InputFiles {
         } catch (AccessDeniedException e) {
             throw refuse(file, 0, "the " + kind.what() + " cannot be read: permission denied");
         }
+        return checked(file, kind, buf, n);
+    }
+
+    /**
+     * Reads a file's bytes through a channel already open on it (for a file read under a lock:
+     * on POSIX systems closing any other descriptor of a file drops the process's lock on it),
+     * with the same checks and limits as {@link #read(Path, Kind)}.
+     *
+     * @param file    the file the channel is open on, for the checks and messages; never null
+     * @param kind    what it is; never null
+     * @param channel a channel open for reading on {@code file}, read from position 0; not closed; never null
+     * @return the bytes; never null
+     * @throws InputException when it is a folder, device or FIFO, too big or has a line too long
+     * @throws IOException    on read failures
+     */
+    public static byte[] read(Path file, Kind kind, FileChannel channel) throws IOException, InputException {
+        Objects.requireNonNull(channel, "channel");
+        long size = requireRegular(file, kind);
+        ByteBuffer buf = ByteBuffer.allocate((int) Math.min(Math.max(size + 1, 8192), kind.maxBytes() + 1));
+        long at = 0;
+        while (true) {
+            if (!buf.hasRemaining()) {
+                if (buf.capacity() > kind.maxBytes()) {
+                    throw tooBig(file, kind); // the file grew while it was read
+                }
+                ByteBuffer bigger = ByteBuffer.allocate((int) Math.min((long) buf.capacity() * 2, kind.maxBytes() + 1));
+                buf.flip();
+                bigger.put(buf);
+                buf = bigger;
+            }
+            int r = channel.read(buf, at);
+            if (r < 0) {
+                break;
+            }
+            at += r;
+        }
+        return checked(file, kind, buf.array(), buf.position());
+    }
+
+    /**
+     * Checks, without opening it, that a file is a regular file within the size limit.
+     *
+     * @param file the file; never null
+     * @param kind what it is; never null
+     * @return the file's size, bytes
+     * @throws java.nio.file.NoSuchFileException when the file does not exist
+     * @throws InputException when it is a folder, device or FIFO, or too big
+     * @throws IOException    when its attributes cannot be read
+     */
+    public static long requireRegular(Path file, Kind kind) throws IOException, InputException {
+        Objects.requireNonNull(file, "file");
+        Objects.requireNonNull(kind, "kind");
+        BasicFileAttributes a = Files.readAttributes(file, BasicFileAttributes.class); // follows links
+        if (a.isDirectory()) {
+            throw refuse(file, 0, "the " + kind.what() + " is a folder; expected " + kind.expected());
+        }
+        if (!a.isRegularFile()) {
+            throw refuse(file, 0, "the " + kind.what() + " is not a regular file (a device, FIFO or socket);"
+                    + " expected " + kind.expected());
+        }
+        if (a.size() > kind.maxBytes()) {
+            throw tooBig(file, kind);
+        }
+        return a.size();
+    }
+
+    /** The first {@code n} bytes of {@code buf} after the size and line-length checks. */
+    private static byte[] checked(Path file, Kind kind, byte[] buf, int n) throws InputException {
         if (n > kind.maxBytes()) {
             throw tooBig(file, kind);
         }

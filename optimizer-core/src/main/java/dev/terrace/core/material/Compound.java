@@ -37,6 +37,15 @@ public record Compound(String name, double a300, double dadT, String groupIII, S
         return a300 / 2.0 / 10.0;
     }
 
+    /**
+     * @return group-III atoms per nm^3 in the crystal at 300 K, 4/a^3 (four cations in the cubic cell of
+     *         zinc blende)
+     */
+    public double cationsPerNm3() {
+        double aNm = a300 / 10.0;
+        return 4.0 / (aNm * aNm * aNm);
+    }
+
     /** @return the number of surface sites per (001) monolayer, 2/a^2, in cm^-2, at 300 K */
     public double sitesPerCm2() {
         double aCm = a300 * 1e-8;

@@ -20,6 +20,12 @@ public final class Materials {
     public static final String VURGAFTMAN_2001 =
             "Vurgaftman, Meyer, Ram-Mohan, J. Appl. Phys. 89, 5815 (2001), Table of III-V lattice constants at 300 K";
 
+    /**
+     * Lowest temperature at which Ga droplets are taken as a supercooled liquid, 150 K: the metastability
+     * limit of supercooled liquid Ga, Bosio and Windsor, Phys. Rev. Lett. 35, 1652 (1975).
+     */
+    public static final double GA_SUPERCOOLING_LIMIT_K = 150.0;
+
     private static final Map<String, Compound> COMPOUNDS = new LinkedHashMap<>();
     private static final Map<String, Metal> METALS = new LinkedHashMap<>();
     private static final Map<String, Double> GROUP_V_MASS = new LinkedHashMap<>();
@@ -35,12 +41,20 @@ public final class Materials {
         // Melting points: ITS-90 fixed points (Preston-Thomas, Metrologia 27, 3 (1990)) for Ga, In and Al.
         // Liquid densities near the melting point and molar masses: CRC Handbook of Chemistry and Physics
         // (values from memory; molar masses are IUPAC standard atomic weights).
-        METALS.put("Ga", new Metal("Ga", 302.9146, 6.095, 69.723, 31,
-                "melting point ITS-90 (Preston-Thomas 1990); liquid density 6.095 g/cm3, CRC Handbook (from memory)"));
-        METALS.put("In", new Metal("In", 429.7485, 7.02, 114.818, 49,
-                "melting point ITS-90 (Preston-Thomas 1990); liquid density 7.02 g/cm3, CRC Handbook (from memory)"));
-        METALS.put("Al", new Metal("Al", 933.473, 2.375, 26.9815385, 13,
-                "melting point ITS-90 (Preston-Thomas 1990); liquid density 2.375 g/cm3, CRC Handbook (from memory)"));
+        // Supercooling limits: liquid Ga droplets supercool down to a metastability limit of 150 K (Bosio and
+        // Windsor, Phys. Rev. Lett. 35, 1652 (1975), micrometre droplets in an emulsion; Parravicini et al.,
+        // Appl. Phys. Lett. 89, 033123 (2006) report 3-15 nm Ga particles liquid down to 90 K). For In and Al no
+        // margin is used: In islands on GaAs(111)A behave as solid just below the melting point (Tuktamyshev
+        // et al., Nanomaterials 10, 1512 (2020)), and no supercooling of Al droplets on III-V surfaces was found.
+        METALS.put("Ga", new Metal("Ga", 302.9146, 6.095, 69.723, 31, GA_SUPERCOOLING_LIMIT_K,
+                "melting point ITS-90 (Preston-Thomas 1990); liquid density 6.095 g/cm3, CRC Handbook (from memory); "
+                        + "supercooled liquid down to 150 K (Bosio and Windsor, Phys. Rev. Lett. 35, 1652 (1975))"));
+        METALS.put("In", new Metal("In", 429.7485, 7.02, 114.818, 49, 429.7485,
+                "melting point ITS-90 (Preston-Thomas 1990); liquid density 7.02 g/cm3, CRC Handbook (from memory); "
+                        + "no supercooling margin (In islands solid below the melting point, Tuktamyshev et al. 2020)"));
+        METALS.put("Al", new Metal("Al", 933.473, 2.375, 26.9815385, 13, 933.473,
+                "melting point ITS-90 (Preston-Thomas 1990); liquid density 2.375 g/cm3, CRC Handbook (from memory); "
+                        + "no supercooling margin (none published for Al droplets on III-V surfaces)"));
         // IUPAC standard atomic weights; atomic numbers.
         GROUP_V_MASS.put("As", 74.921595);
         GROUP_V_MASS.put("Sb", 121.760);
@@ -128,6 +142,21 @@ public final class Materials {
      */
     public static Optional<Metal> metal(String symbol) {
         return Optional.ofNullable(METALS.get(symbol));
+    }
+
+    /**
+     * The compound a deposited metal forms when it crystallises under a group-V flux, for example GaAs from
+     * Ga and As.
+     *
+     * @param metal  the metal symbol, or null
+     * @param groupV the group-V element symbol, or null
+     * @return the binary compound from the table, or empty when either is missing or the binary is not listed
+     */
+    public static Optional<Compound> crystal(String metal, String groupV) {
+        if (metal == null || groupV == null) {
+            return Optional.empty();
+        }
+        return Optional.ofNullable(COMPOUNDS.get(metal + groupV));
     }
 
     /**

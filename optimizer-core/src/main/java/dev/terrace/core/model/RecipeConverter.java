@@ -19,7 +19,7 @@ import java.util.Optional;
  *
  * <p>Group-V flux: when the campaign has a {@code group_v_bep} setting and no {@code group_v_flux}
  * setting, the flux is estimated with {@link BeamFlux#absolute(BeamReading)} (ion-gauge density,
- * Summers' sensitivity, effusive mean speed at the species' default source temperature). That
+ * the ion-gauge electron-count sensitivity, effusive mean speed at the species' default source temperature). That
  * estimate is uncertain by about a factor of 2; the models' fitted cut points absorb a constant
  * factor. Without a species setting the species is {@link #defaultSpecies(String)}.
  *
@@ -31,27 +31,15 @@ public final class RecipeConverter {
     }
 
     /**
-     * Default molecular species of a group-V element when the campaign does not say: As4 and Sb4
-     * (plain sublimation cells, the common case without a cracker) and P2 (phosphorus is normally
-     * supplied through a cracker). Common practice.
+     * Default molecular species of a group-V element when the campaign does not say, from the one table
+     * in {@link dev.terrace.spi.Surface#defaultGroupVSpecies(String)} that the growth models' sticking also
+     * follows: As4, Sb4 and P2 (common practice).
      *
      * @param element group-V element symbol
      * @return the species, or empty for an unknown element
      */
     public static Optional<Species> defaultSpecies(String element) {
-        if (element == null) {
-            return Optional.empty();
-        }
-        switch (element) {
-            case "As":
-                return Optional.of(Species.As4);
-            case "Sb":
-                return Optional.of(Species.Sb4);
-            case "P":
-                return Optional.of(Species.P2);
-            default:
-                return Optional.empty();
-        }
+        return dev.terrace.spi.Surface.defaultGroupVSpecies(element).map(Species::parse);
     }
 
     /**

@@ -16,6 +16,7 @@ import dev.terrace.core.space.DesignSpace;
 import dev.terrace.core.surrogate.ClassModel;
 import dev.terrace.core.surrogate.GaussianProcess;
 import dev.terrace.core.surrogate.GpCensoring;
+import dev.terrace.core.surrogate.GpForward;
 import dev.terrace.core.surrogate.GpLeaveOneOut;
 import dev.terrace.core.surrogate.GpSettings;
 import dev.terrace.core.surrogate.Predictive;
@@ -70,6 +71,8 @@ public final class CampaignSurrogate {
     private final FitReport fit;
     private final Map<String, GaussianProcess> gps;
     private final Map<String, GpLeaveOneOut> skill;
+    /** Per outcome, the factor on the latent sd from the one-step-ahead errors ({@link GpForward#latentFactor}). */
+    private final Map<String, Double> latentFactors;
     private final Map<String, Double> priorFill;
     private final Map<String, Boolean> physicsPrior;
     private final Map<String, ClassModel> classModels;
@@ -86,6 +89,7 @@ public final class CampaignSurrogate {
 
     private CampaignSurrogate(LoadedCampaign lc, DesignSpace space, ModelChain chain, FitReport fit,
                               Map<String, GaussianProcess> gps, Map<String, GpLeaveOneOut> skill,
+                              Map<String, Double> latentFactors,
                               Map<String, Double> priorFill,
                               Map<String, Boolean> physicsPrior, Map<String, ClassModel> classModels,
                               SuccessModel success, List<DesignPoint> runPoints, List<Run> encodedRuns,
@@ -97,6 +101,7 @@ public final class CampaignSurrogate {
         this.fit = fit;
         this.gps = gps;
         this.skill = skill;
+        this.latentFactors = latentFactors;
         this.priorFill = priorFill;
         this.physicsPrior = physicsPrior;
         this.classModels = classModels;
@@ -216,7 +221,18 @@ public final class CampaignSurrogate {
             } catch (dev.terrace.core.InputException | java.io.IOException e) {
                 notes.add("the earlier series named under priors: were not used: " + e.getMessage());
             }
-            fit = ModelFitter.fit(subsample(lc, PHYSICS_FIT_RUNS, seed), registry, seed, false, priors);
+            LoadedCampaign physicsRuns = subsample(lc, PHYSICS_FIT_RUNS, seed);
+            if (c.temperatureCalibration().fitOffset()) {
+                // the thermocouple offset fitted as 'terrace fit' fits it, then used for every prediction
+                dev.terrace.core.fit.OffsetResult off = dev.terrace.core.fit.CampaignFit.offset(physicsRuns, registry,
+                        seed, priors);
+                lc = dev.terrace.core.fit.CampaignFit.withOffset(lc, off.value());
+                c = lc.campaign();
+                physicsRuns = dev.terrace.core.fit.CampaignFit.withOffset(physicsRuns, off.value());
+                notes.add(String.format(java.util.Locale.ROOT, "thermocouple offset fitted: %+.1f K (95 %% %+.1f to %+.1f K),"
+                        + " applied to every substrate temperature", off.value(), off.lo(), off.hi()));
+            }
+            fit = ModelFitter.fit(physicsRuns, registry, seed, false, priors);
             chain = ModelFitter.chain(c, registry, fit);
             for (var f : fit.models()) {
                 if (!f.message().isEmpty()) {
@@ -242,6 +258,7 @@ public final class CampaignSurrogate {
         }
         Map<String, GaussianProcess> gps = new LinkedHashMap<>();
         Map<String, GpLeaveOneOut> skill = new LinkedHashMap<>();
+        Map<String, Double> latent = new LinkedHashMap<>();
         PhysicsBand band = PhysicsBand.of(chain, fit);
         Map<String, double[][]> basis = new LinkedHashMap<>();
         Map<String, java.util.concurrent.Callable<OutcomeGp>> gpTasks = new LinkedHashMap<>();
@@ -399,6 +416,7 @@ public final class CampaignSurrogate {
                 OutcomeGp fo = join(e.getValue());
                 gps.put(e.getKey(), fo.gp());
                 skill.put(e.getKey(), fo.loo());
+                latent.put(e.getKey(), fo.forward().latentFactor(fo.loo().sdFactor()));
                 notes.addAll(fo.notes(e.getKey()));
             }
             for (Map.Entry<String, java.util.concurrent.Future<ClassModel>> e : cf.entrySet()) {
@@ -408,7 +426,7 @@ public final class CampaignSurrogate {
         } finally {
             pool.shutdownNow();
         }
-        return new CampaignSurrogate(lc, space, chain, fit, gps, skill, fill, physics, cms, sm, pts, runs, notes, used,
+        return new CampaignSurrogate(lc, space, chain, fit, gps, skill, latent, fill, physics, cms, sm, pts, runs, notes, used,
                 subsets, band, basis);
     }
 
@@ -576,9 +594,11 @@ public final class CampaignSurrogate {
             GpLeaveOneOut loo = skill.get(o.name());
             // leave-one-out calibration of the spread (GpLeaveOneOut#sdFactor), then the no-skill floor
             double k = loo.sdFactor();
+            // and the one-step-ahead errors' factor on the model's part of the spread (GpForward)
+            double kl = latentFactors.get(o.name());
             double[] sl = pr.sdLatent().clone();
             for (int i = 0; i < sl.length; i++) {
-                sl[i] *= k;
+                sl[i] *= kl;
             }
             sdl.put(o.name(), sl);
             double ns = k * pr.noiseSd();
@@ -621,7 +641,7 @@ public final class CampaignSurrogate {
             next.put(g.getKey(), g.getValue().condition(p, e.mean().get(g.getKey())[0],
                     physicsPrior.get(o.name()) ? prior : Double.NaN));
         }
-        return new CampaignSurrogate(lc, space, chain, fit, next, skill, priorFill, physicsPrior, classModels, success,
+        return new CampaignSurrogate(lc, space, chain, fit, next, skill, latentFactors, priorFill, physicsPrior, classModels, success,
                 runPoints, encodedRuns, notes, runsUsed, subsets, band, basisTrain);
     }
 

@@ -65,8 +65,14 @@ import java.util.regex.Pattern;
  */
 public final class RunLogAppender {
 
-    /** How often the lock is taken again when another process replaced the log meanwhile. */
-    static final int LOCK_ATTEMPTS = 20;
+    /**
+     * How long the lock is taken again and again while other processes keep replacing the log
+     * (each record replaces it, so a burst of records by another process can win the race for
+     * every new file): 60 s, far longer than a burst of records takes, short enough to end a
+     * runaway loop. Own choice; it was a count of 20 attempts, which a burst of 25 records by one
+     * other process could exhaust on a loaded machine.
+     */
+    static final long LOCK_PATIENCE_NANOS = 60_000_000_000L;
 
     private static final ConcurrentHashMap<Path, Object> LOCAL_LOCKS = new ConcurrentHashMap<>();
     private static final Pattern NUMBERED = Pattern.compile("(.*?)(\\d+)");
@@ -170,8 +176,9 @@ public final class RunLogAppender {
             throw new InputException(Diagnostic.error(file, 0, 0, "run log not found; create it first"
                     + " (terrace init writes one with the header row)"));
         }
+        InputFiles.requireRegular(file, InputFiles.RUN_LOG); // a folder, FIFO or device is never opened
         synchronized (LOCAL_LOCKS.computeIfAbsent(real, k -> new Object())) {
-            for (int attempt = 0; attempt < LOCK_ATTEMPTS; attempt++) {
+            for (long start = System.nanoTime(); System.nanoTime() - start < LOCK_PATIENCE_NANOS; ) {
                 Object before = key(real);
                 try (FileChannel ch = openForLock(file, real); FileLock lock = ch.lock()) {
                     if (before != null && !before.equals(key(real))) {
@@ -184,8 +191,8 @@ public final class RunLogAppender {
                 }
             }
         }
-        throw new OutputFailedException(file, "could not append to the run log " + file + ": it kept being"
-                + " replaced by other processes while waiting for its lock; nothing was written", null);
+        throw new OutputFailedException(file, "could not append to the run log " + file + ": for a minute it"
+                + " kept being replaced by other processes while waiting for its lock; nothing was written", null);
     }
 
     // ------------------------------------------------------------------------------------------
@@ -264,6 +271,9 @@ public final class RunLogAppender {
         } catch (InputException e) {
             List<Diagnostic> named = new ArrayList<>();
             for (Diagnostic d : e.diagnostics()) {
+                if (d.line() < line && d.severity() != Diagnostic.Severity.ERROR) {
+                    continue; // an existing row's warning is check's to report, not a cause of this refusal
+                }
                 named.add(d.line() < line ? d : new Diagnostic(d.file(), d.line(), d.column(), d.severity(),
                         "the new row" + argument(columns, starts, cells, d.column()) + ": " + d.message()));
             }
@@ -380,25 +390,11 @@ public final class RunLogAppender {
     }
 
     /**
-     * Reads the log through the locked channel itself: on POSIX systems closing any other
-     * descriptor of the file would release this process's lock.
+     * Reads the log through the locked channel itself, with the limits of every reader: on POSIX
+     * systems closing any other descriptor of the file would release this process's lock.
      */
     private static byte[] readLocked(Path file, FileChannel ch) throws IOException, InputException {
-        long size = ch.size();
-        if (size > InputFiles.MAX_TABLE_BYTES) {
-            throw new InputException(Diagnostic.error(file, 0, 0, "the run log is larger than "
-                    + (InputFiles.MAX_TABLE_BYTES >> 20) + " MiB, the most Terrace reads"));
-        }
-        ByteBuffer buf = ByteBuffer.allocate((int) size);
-        long at = 0;
-        while (buf.hasRemaining()) {
-            int n = ch.read(buf, at);
-            if (n < 0) {
-                break;
-            }
-            at += n;
-        }
-        return Arrays.copyOf(buf.array(), buf.position());
+        return InputFiles.read(file, InputFiles.RUN_LOG, ch);
     }
 
     private static Object key(Path real) throws IOException {

@@ -319,6 +319,34 @@ public final class GaussianProcess {
         return GpLeaveOneOut.of(y, err, var);
     }
 
+    /**
+     * The one-step-ahead errors of the first {@code rows} runs in the order they were given (the log
+     * order), each predicted from the runs before it at this GP's hyperparameters, from the Cholesky
+     * factor already held ({@link GpForward}). Runs with fewer than {@link GpForward#FIRST_SCORED}
+     * runs before them are not scored.
+     *
+     * @param rows how many leading runs to consider (the measured runs), 1 to {@link #n()}
+     * @return the check on the fitting scale; never null
+     */
+    public GpForward forward(int rows) {
+        int n = z.length;
+        if (rows < 1 || rows > n) {
+            throw new IllegalArgumentException("rows must be 1 to " + n + ": " + rows);
+        }
+        double[] w = z.clone();
+        factor.lowerSolveInPlace(w, 1);
+        double noise = hyper.noiseVariance() + factor.jitter();
+        int m = Math.max(0, rows - GpForward.FIRST_SCORED);
+        double[] err = new double[m];
+        double[] lat = new double[m];
+        for (int j = GpForward.FIRST_SCORED; j < rows; j++) {
+            double d = factor.lower()[j + j * n];
+            err[j - GpForward.FIRST_SCORED] = scale * w[j] * d;
+            lat[j - GpForward.FIRST_SCORED] = scale * scale * Math.max(0, d * d - noise);
+        }
+        return GpForward.of(err, lat, scale * scale * noise);
+    }
+
     /** Most runs scored by {@link #leaveOneOut}: 200 triangular solves keep it well under a fit's cost. */
     public static final int LOO_MAX_ROWS = 200;
 

@@ -3,10 +3,7 @@ package dev.terrace.core.validate;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.OutcomeSpec;
-import dev.terrace.core.campaign.Scale;
-import dev.terrace.core.fit.FitResults.Estimate;
 import dev.terrace.core.fit.FitResults.FitReport;
-import dev.terrace.core.fit.FitResults.ModelFit;
 import dev.terrace.core.fit.ModelFitter;
 import dev.terrace.core.model.ModelChain;
 import dev.terrace.core.model.RecipeConverter;
@@ -17,7 +14,6 @@ import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.space.DesignPoint;
 import dev.terrace.core.space.DesignSpace;
 import dev.terrace.core.surrogate.ClassModel;
-import dev.terrace.spi.GrowthModel;
 
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -27,6 +23,18 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+
+import static dev.terrace.core.validate.FoldPredictions.failure;
+import static dev.terrace.core.validate.FoldPredictions.frequencies;
+import static dev.terrace.core.validate.FoldPredictions.measured;
+import static dev.terrace.core.validate.FoldPredictions.physicsProbabilities;
+import static dev.terrace.core.validate.FoldPredictions.physicsSd;
+import static dev.terrace.core.validate.FoldPredictions.priorValue;
+import static dev.terrace.core.validate.FoldPredictions.scaleName;
+import static dev.terrace.core.validate.FoldPredictions.scaled;
+import static dev.terrace.core.validate.FoldPredictions.sdFloor;
+import static dev.terrace.core.validate.FoldPredictions.sdNew;
+import static dev.terrace.core.validate.FoldPredictions.trivialGaussian;
 
 /**
  * Leave-one-out cross-validation of a campaign's surrogates, outcome by outcome.
@@ -325,11 +333,11 @@ public final class Validation {
             folds.add(i);
         }
 
-        Map<String, Map<String, Acc>> acc = new LinkedHashMap<>();
+        Map<String, Map<String, HeldOutPredictions>> acc = new LinkedHashMap<>();
         for (OutcomeSpec o : eligible) {
-            Map<String, Acc> m = new LinkedHashMap<>();
+            Map<String, HeldOutPredictions> m = new LinkedHashMap<>();
             for (String s : List.of(PHYSICS, GP, PHYSICS_GP, MEAN)) {
-                m.put(s, new Acc());
+                m.put(s, new HeldOutPredictions());
             }
             acc.put(o.name(), m);
         }
@@ -398,7 +406,7 @@ public final class Validation {
                 if (!measured(o, held)) {
                     continue;
                 }
-                Map<String, Acc> m = acc.get(o.name());
+                Map<String, HeldOutPredictions> m = acc.get(o.name());
                 if (o.isClass()) {
                     int obs = o.classes().indexOf(held.category(o.name()).orElseThrow());
                     m.get(MEAN).addClass(held.runId(), frequencies(o, train), obs);
@@ -447,11 +455,11 @@ public final class Validation {
         List<String> outcomeLines = new ArrayList<>();
         Map<String, String> bestByOutcome = new LinkedHashMap<>();
         for (OutcomeSpec o : eligible) {
-            Map<String, Acc> m = acc.get(o.name());
+            Map<String, HeldOutPredictions> m = acc.get(o.name());
             Map<String, Score> scores = new LinkedHashMap<>();
             List<ParityPoint> parity = new ArrayList<>();
             for (String s : List.of(PHYSICS, GP, PHYSICS_GP, MEAN)) {
-                Acc a = m.get(s);
+                HeldOutPredictions a = m.get(s);
                 if (a.size() == 0) {
                     continue;
                 }
@@ -507,253 +515,5 @@ public final class Validation {
             verdict.add("best surrogate by outcome: " + String.join(", ", parts));
         }
         return new ValidationReport(c.id(), outs, verdict);
-    }
-
-    // ------------------------------------------------------------------ per-fold pieces
-
-    /** True when the run holds a usable measurement of the outcome. */
-    static boolean measured(OutcomeSpec o, Run r) {
-        if (o.isClass()) {
-            return r.category(o.name()).map(v -> o.classes().contains(v)).orElse(false);
-        }
-        var v = r.number(o.name());
-        return v.isPresent() && Double.isFinite(v.getAsDouble()) && (o.scale() != Scale.LOG || v.getAsDouble() > 0);
-    }
-
-    static double scaled(OutcomeSpec o, double v) {
-        return o.scale() == Scale.LOG ? Math.log10(v) : v;
-    }
-
-    static double unscaled(OutcomeSpec o, double v) {
-        return o.scale() == Scale.LOG ? Math.pow(10, v) : v;
-    }
-
-    static String scaleName(OutcomeSpec o) {
-        if (o.isClass()) {
-            return "class";
-        }
-        return o.scale() == Scale.LOG ? "log10" : "linear";
-    }
-
-    /** {mean, sample sd floored, mean magnitude} of the ok training runs' values on the fitting scale. */
-    static double[] trivialGaussian(OutcomeSpec o, List<Run> train) {
-        double sum = 0;
-        double sumAbs = 0;
-        int n = 0;
-        List<Double> ys = new ArrayList<>();
-        for (Run r : train) {
-            if (r.ok() && measured(o, r)) {
-                double y = scaled(o, r.number(o.name()).getAsDouble());
-                ys.add(y);
-                sum += y;
-                sumAbs += Math.abs(y);
-                n++;
-            }
-        }
-        double mean = sum / n;
-        double ss = 0;
-        for (double y : ys) {
-            ss += (y - mean) * (y - mean);
-        }
-        double meanAbs = sumAbs / n;
-        double sd = n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
-        return new double[] {mean, Math.max(sd, sdFloor(o, meanAbs)), meanAbs};
-    }
-
-    /** The smallest predictive sd allowed, from the fitter's noise floors. */
-    static double sdFloor(OutcomeSpec o, double meanAbs) {
-        if (o.scale() == Scale.LOG) {
-            return ModelFitter.LOG_NOISE_FLOOR;
-        }
-        return Math.max(ModelFitter.LINEAR_NOISE_FLOOR * meanAbs, Double.MIN_NORMAL);
-    }
-
-    /** Laplace-smoothed class frequencies of the ok training runs, in campaign class order. */
-    static double[] frequencies(OutcomeSpec o, List<Run> train) {
-        int k = o.classes().size();
-        double[] p = new double[k];
-        java.util.Arrays.fill(p, 1);
-        double total = k;
-        for (Run r : train) {
-            if (r.ok() && measured(o, r)) {
-                p[o.classes().indexOf(r.category(o.name()).get())] += 1;
-                total += 1;
-            }
-        }
-        for (int j = 0; j < k; j++) {
-            p[j] /= total;
-        }
-        return p;
-    }
-
-    /** The chain's prediction of a numeric outcome on its fitting scale, or NaN. */
-    static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return Double.NaN;
-        }
-        Double v = r.values().get(o.role());
-        if (v == null) {
-            return Double.NaN;
-        }
-        double inUnit = o.unit().fromCanonical(v, c.surface().monolayerHeightNm());
-        if (!Double.isFinite(inUnit) || (o.scale() == Scale.LOG && inUnit <= 0)) {
-            return Double.NaN;
-        }
-        return scaled(o, inUnit);
-    }
-
-    /** The chain's class probabilities in campaign order, floored and renormalised, or null. */
-    static double[] physicsProbabilities(OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return null;
-        }
-        Map<String, Double> m = r.probabilities().get(o.role());
-        if (m == null) {
-            return null;
-        }
-        double[] p = new double[o.classes().size()];
-        double sum = 0;
-        for (int k = 0; k < p.length; k++) {
-            Double v = m.get(o.classes().get(k));
-            p[k] = Math.max(v == null || !Double.isFinite(v) ? 0 : v, ClassModel.PROBABILITY_FLOOR);
-            sum += p[k];
-        }
-        for (int k = 0; k < p.length; k++) {
-            p[k] /= sum;
-        }
-        return p;
-    }
-
-    /**
-     * Residual standard error of the chain on the training runs: sqrt(SSE / max(n - p, 1)) with p
-     * the fitted parameters of the models that predict the outcome; NaN when no training run has a
-     * valid prediction.
-     */
-    static double physicsSd(Campaign c, OutcomeSpec o, List<Run> train, List<ModelChain.Result> atTrain,
-                            FitReport fit, PluginRegistry reg) {
-        double sse = 0;
-        int n = 0;
-        for (int i = 0; i < train.size(); i++) {
-            Run r = train.get(i);
-            if (!r.ok() || !measured(o, r) || atTrain.get(i) == null) {
-                continue;
-            }
-            double f = priorValue(c, o, atTrain.get(i));
-            if (!Double.isFinite(f)) {
-                continue;
-            }
-            double e = scaled(o, r.number(o.name()).getAsDouble()) - f;
-            sse += e * e;
-            n++;
-        }
-        if (n == 0) {
-            return Double.NaN;
-        }
-        int p = 0;
-        if (fit != null && o.role() != null) {
-            for (ModelFit mf : fit.models()) {
-                Optional<GrowthModel> gm = reg.model(mf.id());
-                if (gm.isPresent() && gm.get().predictedOutcomes().contains(o.role())) {
-                    for (Estimate e : mf.estimates()) {
-                        if (!e.held()) {
-                            p++;
-                        }
-                    }
-                }
-            }
-        }
-        return Math.sqrt(sse / Math.max(n - p, 1));
-    }
-
-    static double sdNew(CampaignSurrogate.Evaluation ev, String outcome) {
-        return Math.hypot(ev.sdLatent().get(outcome)[0], ev.noiseSd().get(outcome));
-    }
-
-    static String failure(Run held, String surrogate, RuntimeException e) {
-        return "with run " + held.runId() + " held out, " + surrogate + " could not be fitted ("
-                + e.getClass().getSimpleName() + (e.getMessage() == null ? "" : ": " + e.getMessage())
-                + "); that fold is not scored for it";
-    }
-
-    /** Negative log density of y under N(mu, sd²). */
-    static double nlpd(double y, double mu, double sd) {
-        double z = (y - mu) / sd;
-        return 0.5 * Math.log(2 * Math.PI * sd * sd) + 0.5 * z * z;
-    }
-
-    // ------------------------------------------------------------------ accumulation
-
-    /** Held-out predictions of one surrogate for one outcome. */
-    private static final class Acc {
-        final List<String> runIds = new ArrayList<>();
-        final List<double[]> numbers = new ArrayList<>();
-        final List<double[]> probs = new ArrayList<>();
-        final List<Integer> observed = new ArrayList<>();
-
-        void addNumber(String runId, double y, double mu, double sd, double m0, double s0) {
-            runIds.add(runId);
-            numbers.add(new double[] {y, mu, sd, m0, s0});
-        }
-
-        void addClass(String runId, double[] p, int obs) {
-            runIds.add(runId);
-            probs.add(p.clone());
-            observed.add(obs);
-        }
-
-        int size() {
-            return runIds.size();
-        }
-
-        Score score(boolean cls) {
-            int n = size();
-            if (cls) {
-                double ll = 0;
-                int right = 0;
-                for (int i = 0; i < n; i++) {
-                    double[] p = probs.get(i);
-                    int obs = observed.get(i);
-                    ll -= Math.log(Math.max(p[obs], ClassModel.PROBABILITY_FLOOR));
-                    int top = 0;
-                    for (int k = 1; k < p.length; k++) {
-                        if (p[k] > p[top]) {
-                            top = k;
-                        }
-                    }
-                    if (top == obs) {
-                        right++;
-                    }
-                }
-                return Score.classes(n, ll / n, (double) right / n);
-            }
-            double ss = 0;
-            int inside = 0;
-            double sll = 0;
-            for (double[] v : numbers) {
-                double e = v[0] - v[1];
-                ss += e * e;
-                if (Math.abs(e) <= Z90 * v[2]) {
-                    inside++;
-                }
-                sll += nlpd(v[0], v[1], v[2]) - nlpd(v[0], v[3], v[4]);
-            }
-            return Score.numeric(n, Math.sqrt(ss / n), (double) inside / n, sll / n);
-        }
-
-        List<ParityPoint> parity(String surrogate, OutcomeSpec o) {
-            List<ParityPoint> out = new ArrayList<>();
-            for (int i = 0; i < numbers.size(); i++) {
-                double[] v = numbers.get(i);
-                double meas = unscaled(o, v[0]);
-                double pred = unscaled(o, v[1]);
-                double lo = unscaled(o, v[1] - Z90 * v[2]);
-                double hi = unscaled(o, v[1] + Z90 * v[2]);
-                if (Double.isFinite(meas) && Double.isFinite(pred) && Double.isFinite(lo) && Double.isFinite(hi)) {
-                    out.add(new ParityPoint(surrogate, runIds.get(i), meas, pred, Math.min(lo, pred),
-                            Math.max(hi, pred)));
-                }
-            }
-            return out;
-        }
     }
 }

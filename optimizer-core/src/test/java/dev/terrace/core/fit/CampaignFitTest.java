@@ -1,11 +1,11 @@
 package dev.terrace.core.fit;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.core.InputException;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.fit.FitResults.Estimate;
 import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.spi.Conditions;
-import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
 import dev.terrace.spi.ParameterValues;
 import dev.terrace.spi.Prediction;
@@ -21,7 +21,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
-import java.util.Set;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -38,31 +37,13 @@ class CampaignFitTest {
     static final double K_B = Arrhenius.BOLTZMANN_EV_PER_K; // CODATA 2018 Boltzmann constant in eV/K
 
     /** density = prefactor * exp(energy / kT); with {@code fixedEnergy} only the prefactor is a parameter. */
-    static final class ArrheniusModel implements GrowthModel {
+    static final class ArrheniusModel extends TestGrowthModel {
         final boolean fixedEnergy;
 
         ArrheniusModel(boolean fixedEnergy) {
+            super("arrhenius-test", "Arrhenius island density for offset and prior tests", Role.SUBSTRATE_TEMPERATURE,
+                    Role.ISLAND_DENSITY);
             this.fixedEnergy = fixedEnergy;
-        }
-
-        @Override
-        public String id() {
-            return "arrhenius-test";
-        }
-
-        @Override
-        public String description() {
-            return "Arrhenius island density for offset and prior tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DENSITY);
         }
 
         @Override

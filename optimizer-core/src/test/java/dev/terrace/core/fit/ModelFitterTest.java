@@ -1,5 +1,6 @@
 package dev.terrace.core.fit;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
@@ -9,7 +10,6 @@ import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
 import dev.terrace.spi.Conditions;
-import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
 import dev.terrace.spi.ParameterValues;
 import dev.terrace.spi.Prediction;
@@ -25,7 +25,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
-import java.util.Set;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -34,25 +33,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 class ModelFitterTest {
 
     /** size = a + b * T (T in K): a straight line, so the fit must reproduce ordinary least squares. */
-    static final class LineModel implements GrowthModel {
-        @Override
-        public String id() {
-            return "line-test";
-        }
-
-        @Override
-        public String description() {
-            return "straight line for fitter tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DIAMETER);
+    static final class LineModel extends TestGrowthModel {
+        LineModel() {
+            super("line-test", "straight line for fitter tests", Role.SUBSTRATE_TEMPERATURE, Role.ISLAND_DIAMETER);
         }
 
         @Override

@@ -1,5 +1,6 @@
 package dev.terrace.core.fit;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
@@ -9,7 +10,6 @@ import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
 import dev.terrace.spi.Conditions;
-import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
 import dev.terrace.spi.ParameterValues;
 import dev.terrace.spi.Prediction;
@@ -23,7 +23,6 @@ import java.io.StringReader;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
-import java.util.Set;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -38,25 +37,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 class TobitFitTest {
 
     /** size = level, whatever the temperature: a one-parameter model. */
-    static final class LevelModel implements GrowthModel {
-        @Override
-        public String id() {
-            return "level-test";
-        }
-
-        @Override
-        public String description() {
-            return "constant level for the Tobit test";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DIAMETER);
+    static final class LevelModel extends TestGrowthModel {
+        LevelModel() {
+            super("level-test", "constant level for the Tobit test", Role.SUBSTRATE_TEMPERATURE, Role.ISLAND_DIAMETER);
         }
 
         @Override

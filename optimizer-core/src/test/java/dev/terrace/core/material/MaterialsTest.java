@@ -99,4 +99,42 @@ class MaterialsTest {
         assertEquals(15, Materials.groupVElectrons("P").orElseThrow());
         assertTrue(Materials.groupVMolarMass("N").isEmpty());
     }
+
+    @Test
+    void liquidMetalHoldsMoreCationsPerVolumeThanItsArsenide() {
+        // Cation number densities: liquid at the melting point rho*N_A/M (CRC Handbook of Chemistry and Physics
+        // liquid densities, values from memory: Ga 6.095, In 7.02, Al 2.375 g/cm^3; IUPAC molar masses) against
+        // 4/a^3 for zinc blende with a300 from Vurgaftman, Meyer, Ram-Mohan, J. Appl. Phys. 89, 5815 (2001).
+        // Derived here: Ga 5.2644e22 vs GaAs 4/(5.65325e-8)^3 = 2.2139e22 /cm^3, ratio 2.378;
+        // In 3.6820e22 vs InAs 4/(6.0583e-8)^3 = 1.7989e22, ratio 2.047; Al 5.3009e22 vs AlAs 4/(5.6611e-8)^3
+        // = 2.2047e22, ratio 2.404.
+        Object[][] cases = {{"Ga", "As", 5.2644e22, 2.2139e22, 2.378}, {"In", "As", 3.6820e22, 1.7989e22, 2.047},
+            {"Al", "As", 5.3009e22, 2.2047e22, 2.404}};
+        for (Object[] c : cases) {
+            Metal m = Materials.metal((String) c[0]).orElseThrow();
+            Compound x = Materials.crystal((String) c[0], (String) c[1]).orElseThrow();
+            double liquid = m.liquidAtomsPerNm3() * 1e21;
+            double crystal = x.cationsPerNm3() * 1e21;
+            assertEquals((double) c[2], liquid, 2e-4 * (double) c[2], c[0] + " liquid");
+            assertEquals((double) c[3], crystal, 2e-4 * (double) c[3], x.name());
+            assertEquals((double) c[4], liquid / crystal, 2e-3, c[0] + " into " + x.name());
+        }
+        assertEquals("InP", Materials.crystal("In", "P").orElseThrow().name());
+        assertTrue(Materials.crystal("Ga", "P").isEmpty(), "GaP is not in the table");
+        assertTrue(Materials.crystal(null, "As").isEmpty());
+    }
+
+    @Test
+    void galliumSupercoolsWithAStatedMarginAndTheOthersDoNot() {
+        // liquid Ga metastability limit 150 K: Bosio and Windsor, Phys. Rev. Lett. 35, 1652 (1975); margin
+        // 302.9146 - 150 = 152.9146 K. In and Al: no margin (melting point is the limit).
+        assertEquals(150.0, Materials.metal("Ga").orElseThrow().supercoolingLimitK(), 1e-9);
+        assertEquals(152.9146, Materials.metal("Ga").orElseThrow().supercoolingMarginK(), 1e-9);
+        assertEquals(0.0, Materials.metal("In").orElseThrow().supercoolingMarginK(), 1e-9);
+        assertEquals(0.0, Materials.metal("Al").orElseThrow().supercoolingMarginK(), 1e-9);
+        for (String metal : Materials.metalNames()) {
+            Metal m = Materials.metal(metal).orElseThrow();
+            assertTrue(m.source().contains("supercool"), metal + " names the source of its supercooling limit");
+        }
+    }
 }

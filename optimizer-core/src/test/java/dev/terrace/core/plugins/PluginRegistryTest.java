@@ -1,5 +1,6 @@
 package dev.terrace.core.plugins;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.spi.Conditions;
 import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
@@ -32,36 +33,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 class PluginRegistryTest {
 
     /** A minimal valid plugin for registry tests. */
-    static class FakeModel implements GrowthModel {
-        private final String id;
-
+    static class FakeModel extends TestGrowthModel {
         FakeModel(String id) {
-            this.id = id;
-        }
-
-        @Override
-        public String id() {
-            return id;
-        }
-
-        @Override
-        public String description() {
-            return "fake model for registry tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DENSITY);
-        }
-
-        @Override
-        public List<ModelParameter> parameters() {
-            return List.of();
+            super(id, "fake model for registry tests", Role.SUBSTRATE_TEMPERATURE, Role.ISLAND_DENSITY);
         }
 
         @Override
@@ -70,37 +44,14 @@ class PluginRegistryTest {
         }
     }
 
-    static final class IdThrows implements GrowthModel {
-        private final FakeModel delegate = new FakeModel("unused");
+    static final class IdThrows extends FakeModel {
+        IdThrows() {
+            super("unused");
+        }
 
         @Override
         public String id() {
             throw new IllegalStateException("broken id");
-        }
-
-        @Override
-        public String description() {
-            return delegate.description();
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return delegate.requiredInputs();
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return delegate.predictedOutcomes();
-        }
-
-        @Override
-        public List<ModelParameter> parameters() {
-            return delegate.parameters();
-        }
-
-        @Override
-        public Prediction predict(Conditions c, Surface s, ParameterValues p) {
-            return delegate.predict(c, s, p);
         }
     }
 

@@ -1,5 +1,6 @@
 package dev.terrace.core.propose;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
@@ -8,7 +9,6 @@ import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
 import dev.terrace.core.space.DesignPoint;
 import dev.terrace.spi.Conditions;
-import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
 import dev.terrace.spi.ParameterValues;
 import dev.terrace.spi.Prediction;
@@ -23,7 +23,6 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.Set;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -41,25 +40,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 class CensoredSurrogateTest {
 
     /** density = 10^level, a constant: the physics prior knows nothing of the hot end. */
-    static final class FlatDensityModel implements GrowthModel {
-        @Override
-        public String id() {
-            return "flat-density-test";
-        }
-
-        @Override
-        public String description() {
-            return "constant island density for censoring tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DENSITY);
+    static final class FlatDensityModel extends TestGrowthModel {
+        FlatDensityModel() {
+            super("flat-density-test", "constant island density for censoring tests", Role.SUBSTRATE_TEMPERATURE, Role.ISLAND_DENSITY);
         }
 
         @Override

@@ -215,4 +215,32 @@ class RunLogAppenderTest {
         assertEquals(52, log.runs().stream().map(Run::runId).distinct().count());
         assertTrue(Files.readString(runs).startsWith(LOG));
     }
+
+    /**
+     * The log read under the lock has the limits of every reader (InputFiles: 1 MiB a line,
+     * 50 MiB, regular files only; Terrace's own limits), and a refused log is left byte-identical.
+     */
+    @Test
+    void theLockedReadHasTheLimitsOfEveryReader(@TempDir Path tmp) throws Exception {
+        Path runs = tmp.resolve("runs.csv");
+        Files.writeString(runs, LOG + "# " + "x".repeat(1024 * 1024) + "\n");
+        byte[] before = Files.readAllBytes(runs);
+        InputException e = assertThrows(InputException.class,
+                () -> RunLogAppender.append(campaignAt(runs), cells("t_sub", "205")));
+        assertTrue(e.getMessage().contains("may be at most 1 MiB"), e.getMessage());
+        assertEquals(sha256(before), sha256(Files.readAllBytes(runs)));
+
+        Path big = tmp.resolve("big.csv");
+        Files.writeString(big, LOG);
+        try (java.io.RandomAccessFile f = new java.io.RandomAccessFile(big.toFile(), "rw")) {
+            f.setLength(50L * 1024 * 1024 + 1); // sparse
+        }
+        e = assertThrows(InputException.class, () -> RunLogAppender.append(campaignAt(big), cells("t_sub", "205")));
+        assertTrue(e.getMessage().contains("larger than 50 MiB"), e.getMessage());
+        assertEquals(50L * 1024 * 1024 + 1, Files.size(big));
+
+        Path folder = Files.createDirectories(tmp.resolve("logdir"));
+        e = assertThrows(InputException.class, () -> RunLogAppender.append(campaignAt(folder), cells("t_sub", "205")));
+        assertTrue(e.getMessage().contains("is a folder"), e.getMessage());
+    }
 }

@@ -1,5 +1,6 @@
 package dev.terrace.core.validate;
 
+import dev.terrace.core.TestGrowthModel;
 import dev.terrace.core.LoadedCampaign;
 import dev.terrace.core.campaign.Campaign;
 import dev.terrace.core.campaign.CampaignReader;
@@ -7,7 +8,6 @@ import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.runlog.RunLog;
 import dev.terrace.core.runlog.RunLogReader;
 import dev.terrace.spi.Conditions;
-import dev.terrace.spi.GrowthModel;
 import dev.terrace.spi.ModelParameter;
 import dev.terrace.spi.ParameterValues;
 import dev.terrace.spi.Prediction;
@@ -40,25 +40,9 @@ class ValidationTest {
     static final double NOISE_SD = 0.5;
 
     /** size = a + b * T (T in K): a straight line, so the physics fit is ordinary least squares. */
-    static final class LineModel implements GrowthModel {
-        @Override
-        public String id() {
-            return "line-test";
-        }
-
-        @Override
-        public String description() {
-            return "straight line for validation tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.ISLAND_DIAMETER);
+    static final class LineModel extends TestGrowthModel {
+        LineModel() {
+            super("line-test", "straight line for validation tests", Role.SUBSTRATE_TEMPERATURE, Role.ISLAND_DIAMETER);
         }
 
         @Override
@@ -77,32 +61,11 @@ class ValidationTest {
     }
 
     /** Fixed class probabilities whatever the recipe: a classifier whose log loss is known in advance. */
-    static final class FixedShapeModel implements GrowthModel {
+    static final class FixedShapeModel extends TestGrowthModel {
         static final Map<String, Double> P = Map.of("dot", 0.7, "ring", 0.2, "disk", 0.1);
 
-        @Override
-        public String id() {
-            return "fixed-shape-test";
-        }
-
-        @Override
-        public String description() {
-            return "constant class probabilities for validation tests";
-        }
-
-        @Override
-        public Set<Role> requiredInputs() {
-            return Set.of(Role.SUBSTRATE_TEMPERATURE);
-        }
-
-        @Override
-        public Set<Role> predictedOutcomes() {
-            return Set.of(Role.MORPHOLOGY);
-        }
-
-        @Override
-        public List<ModelParameter> parameters() {
-            return List.of();
+        FixedShapeModel() {
+            super("fixed-shape-test", "constant class probabilities for validation tests", Role.SUBSTRATE_TEMPERATURE, Role.MORPHOLOGY);
         }
 
         @Override

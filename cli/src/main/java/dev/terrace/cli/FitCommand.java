@@ -124,6 +124,11 @@ final class FitCommand implements Callable<Integer> {
             }
             throw new JobFailedException(sb.toString());
         }
+        if (!global.quiet) {
+            // one line pointing to the full cautions, as propose, rank, map and record print it
+            err.println(dev.terrace.core.Cautions.pointer(lc.campaign()));
+            err.flush();
+        }
         return 0;
     }
 

@@ -99,9 +99,7 @@ final class ValidateCommand implements Callable<Integer> {
                 if (o.scale().equals("class") || o.parity().isEmpty()) {
                     continue;
                 }
-                var oc = lc.campaign().outcome(o.outcome()).orElseThrow();
-                var chart = dev.terrace.cli.plot.Plots.parity(o.outcome() + " ("
-                        + ReportCommand.chartUnit(oc.unit().symbol()) + ")", o.scale().equals("log10"), o.parity());
+                var chart = parityChart(lc.campaign(), o);
                 Path f = plots.resolve("parity-" + o.outcome() + ".png");
                 dev.terrace.cli.plot.Plots.save(chart, dev.terrace.core.io.SafeFiles.target(f).creatingFolders()
                         .protecting(lc.inputs()), 800, 640);
@@ -110,6 +108,24 @@ final class ValidateCommand implements Callable<Integer> {
             err.flush();
         }
         return 0;
+    }
+
+    /**
+     * The parity chart of one outcome as {@code --plots} writes it: the proposal surrogate's points
+     * carry their run ids and the outcome's target band is shaded, as in the report.
+     */
+    static org.jfree.chart.JFreeChart parityChart(dev.terrace.core.campaign.Campaign c, OutcomeValidation o) {
+        var oc = c.outcome(o.outcome()).orElseThrow();
+        double tMin = Double.NaN;
+        double tMax = Double.NaN;
+        for (dev.terrace.core.campaign.Target t : c.targets()) {
+            if (t.outcome().equals(o.outcome()) && t.hasWindow()) {
+                tMin = t.min();
+                tMax = t.max();
+            }
+        }
+        return dev.terrace.cli.plot.Plots.parity(o.outcome() + " (" + ReportCommand.chartUnit(oc.unit().symbol())
+                + ")", o.scale().equals("log10"), o.parity(), Validation.PHYSICS_GP, tMin, tMax);
     }
 
     static void printTable(ValidationReport r, long seed, boolean noModels, PrintWriter out) {

@@ -38,6 +38,33 @@ class SkDotsDemoTest {
     }
 
     @Test
+    void skDotsRunLogHasTheProposalColumnSoTheTrackRecordWorks(@TempDir Path tmp) throws Exception {
+        Path campaign = dev.terrace.demo.DemoSeries.SK_DOTS.copyTo(tmp.resolve("sk"));
+        String header = Files.readAllLines(campaign.resolveSibling("runs.csv")).stream()
+                .filter(l -> l.startsWith("run_id,")).findFirst().orElseThrow();
+        assertTrue(header.contains(",proposal,"), header);
+        CliTest.Outcome fresh = CliTest.run("check", campaign.toString());
+        assertEquals(0, fresh.code(), fresh.err());
+        assertEquals("", fresh.err().strip(), "check on the bundled series warns about nothing");
+        CliTest.Outcome p = CliTest.run("propose", campaign.toString(), "--batch", "2", "--format", "json", "--quiet");
+        assertEquals(0, p.code(), p.err());
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("\"id\"\\s*:\\s*\"(P-[0-9a-f]+)\"").matcher(p.out());
+        assertTrue(m.find(), p.out());
+        String top = m.group(1);
+        // invented outcomes of the grown proposal: a density in the target, dots on RHEED
+        CliTest.Outcome r = CliTest.run("record", campaign.toString(), "--proposal", top, "dot_density=3.1e10",
+                "rheed=dots", "--quiet");
+        assertEquals(0, r.code(), r.err());
+        assertTrue(Files.readString(campaign.resolveSibling("runs.csv")).contains("," + top + ","),
+                "the new row names its proposal");
+        CliTest.Outcome c = CliTest.run("check", campaign.toString());
+        assertEquals(0, c.code(), c.err());
+        assertTrue(c.out().contains("Track record (runs that followed a proposal"), c.out());
+        assertTrue(c.out().contains("K17  " + top), c.out());
+        assertEquals("", c.err().strip(), "no warnings after recording");
+    }
+
+    @Test
     void unknownSeriesIsAUsageError(@TempDir Path tmp) {
         CliTest.Outcome o = CliTest.run("demo", "--series", "no-such", "--dir", tmp.resolve("x").toString());
         assertEquals(2, o.code());

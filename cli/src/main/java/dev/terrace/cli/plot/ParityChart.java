@@ -143,17 +143,22 @@ final class ParityChart {
     }
 
     /**
-     * As {@link #parity(String, boolean, String[], double[], double[], double[], double[])} for the
-     * held-out predictions of a validation, grouped by surrogate.
+     * Parity chart of held-out predictions, grouped by surrogate, with the points of one group
+     * labelled with their run ids and the target band shaded (see the array form below).
      *
-     * @param quantity what is compared, with its unit
-     * @param logScale true for log axes ({@code scale: log} outcomes)
-     * @param points   the held-out predictions, in the outcome's campaign unit; never null
+     * @param quantity   what is compared, with its unit
+     * @param logScale   true for log axes
+     * @param points     the held-out predictions; never null
+     * @param labelGroup the surrogate whose points carry their run id
+     * @param targetMin  lower end of the target, -infinity for none (NaN: no band)
+     * @param targetMax  upper end of the target, +infinity for none (NaN: no band)
      * @return the chart; never null
      */
-    public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points) {
+    public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points, String labelGroup,
+                                    double targetMin, double targetMax) {
         int n = points.size();
         String[] g = new String[n];
+        String[] ids = new String[n];
         double[] m = new double[n];
         double[] p = new double[n];
         double[] lo = new double[n];
@@ -161,12 +166,13 @@ final class ParityChart {
         for (int k = 0; k < n; k++) {
             ParityPoint q = points.get(k);
             g[k] = q.surrogate();
+            ids[k] = q.runId();
             m[k] = q.measured();
             p[k] = q.predicted();
             lo[k] = q.lo90();
             hi[k] = q.hi90();
         }
-        return parity(quantity, logScale, g, m, p, lo, hi);
+        return parity(quantity, logScale, g, m, p, lo, hi, ids, labelGroup, targetMin, targetMax);
     }
 
     /**

@@ -89,12 +89,20 @@ public final class Plots {
     }
 
     /**
-     * As {@link #parity(String, boolean, String[], double[], double[], double[], double[])} for the
-     * held-out predictions of a validation, grouped by surrogate.
+     * As {@link #parity(String, boolean, String[], double[], double[], double[], double[])}, with
+     * each point of one group labelled with its run id and the target band shaded on both axes.
      *
-     * @param quantity what is compared, with its unit
-     * @param logScale true for log axes ({@code scale: log} outcomes)
-     * @param points   the held-out predictions, in the outcome's campaign unit; never null
+     * @param quantity   what is compared, with its unit
+     * @param logScale   true for log axes ({@code scale: log} outcomes)
+     * @param groups     the group of each point
+     * @param measured   measured values
+     * @param predicted  predicted values
+     * @param lo90       lower ends of the 90 % intervals
+     * @param hi90       upper ends of the 90 % intervals
+     * @param runIds     the run id of each point
+     * @param labelGroup the group whose points carry their run id
+     * @param targetMin  lower end of the target, -infinity for none (NaN: no band)
+     * @param targetMax  upper end of the target, +infinity for none (NaN: no band)
      * @return the chart; never null
      */
     public static JFreeChart parity(String quantity, boolean logScale, String[] groups, double[] measured,
@@ -105,15 +113,20 @@ public final class Plots {
     }
 
     /**
-     * Parity chart of held-out predictions.
+     * Parity chart of held-out predictions, grouped by surrogate, the points of {@code labelGroup}
+     * labelled with their run ids and the target band shaded on both axes.
      *
-     * @param quantity what is compared, with its unit
-     * @param logScale true for log axes
-     * @param points   the held-out predictions; never null
+     * @param quantity   what is compared, with its unit
+     * @param logScale   true for log axes
+     * @param points     the held-out predictions; never null
+     * @param labelGroup the surrogate whose points carry their run id
+     * @param targetMin  lower end of the target, -infinity for none (NaN: no band)
+     * @param targetMax  upper end of the target, +infinity for none (NaN: no band)
      * @return the chart; never null
      */
-    public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points) {
-        return ParityChart.parity(quantity, logScale, points);
+    public static JFreeChart parity(String quantity, boolean logScale, List<ParityPoint> points, String labelGroup,
+                                    double targetMin, double targetMax) {
+        return ParityChart.parity(quantity, logScale, points, labelGroup, targetMin, targetMax);
     }
 
     /**

@@ -61,8 +61,10 @@ final class WindowMapChart {
      *
      * <p>Runs are drawn at their own x and y (their other settings may differ from the held ones):
      * one marker shape per class of the mapped class outcome, filled black when the run met every
-     * target and hollow (white) otherwise; failed runs are crosses (×). Proposals are bold plus
-     * signs labelled with their rank.
+     * target and hollow (white) otherwise; failed runs are crosses (×), drawn last. Where runs of
+     * different kinds share a recipe on the two axes, their markers are set side by side (about a
+     * marker's width apart) so that none hides another, and "×n" beside them gives the count of
+     * runs there. Proposals are bold plus signs labelled with their rank.
      *
      * @param map       the map
      * @param runs      measured runs to overlay; may be empty, never null
@@ -110,7 +112,7 @@ final class WindowMapChart {
                 WindowMap.WINDOW_THRESHOLD), xp, yp));
         List<double[]> plainWindow = map.robust() ? Contours.chain(toData(Contours.segments(padded(map.plainYield()),
                 ux, uy, WindowMap.WINDOW_THRESHOLD), xp, yp)) : List.of();
-        List<double[]> classEdges = classEdges(map);
+        List<double[]> classEdges = classEdges(map, ux, uy);
         MapLayerRenderer cellRenderer = new MapLayerRenderer(map, scale, classEdges, window, plainWindow);
         ValueAxis xAxis = axis(xp);
         ValueAxis yAxis = axis(yp);
@@ -129,8 +131,12 @@ final class WindowMapChart {
         Map<String, XYSeries> bySeries = new LinkedHashMap<>();
         Map<String, Shape> shapes = new LinkedHashMap<>();
         Map<String, Boolean> filled = new LinkedHashMap<>();
+        // the kinds of marker (series keys) at each recipe on the map's two axes, in legend order
+        Map<List<Double>, List<String>> kindsAt = new LinkedHashMap<>();
+        List<String> runKeys = new ArrayList<>();
         for (Run r : runs) {
             if (r.number(xp.name()).isEmpty() || r.number(yp.name()).isEmpty()) {
+                runKeys.add(null);
                 continue;
             }
             String key;
@@ -150,10 +156,27 @@ final class WindowMapChart {
                         : MarkerShapes.forClass(idx);
                 fill = met;
             }
-            bySeries.computeIfAbsent(key, k -> new XYSeries(k, false, true)).add(r.number(xp.name()).getAsDouble(),
-                    r.number(yp.name()).getAsDouble());
+            runKeys.add(key);
             shapes.put(key, shape);
             filled.put(key, fill);
+            List<String> kinds = kindsAt.computeIfAbsent(position(r, xp, yp), q -> new ArrayList<>());
+            if (!kinds.contains(key)) {
+                kinds.add(key);
+            }
+        }
+        kindsAt.values().forEach(k -> k.sort((a, b) -> Integer.compare(order(a, map), order(b, map))));
+        Map<List<Double>, Double> rightmost = new LinkedHashMap<>();
+        for (int n = 0; n < runs.size(); n++) {
+            String key = runKeys.get(n);
+            if (key == null) {
+                continue;
+            }
+            Run r = runs.get(n);
+            List<Double> at = position(r, xp, yp);
+            List<String> kinds = kindsAt.get(at);
+            double x = spreadX(at.get(0), kinds.indexOf(key), kinds.size(), xp);
+            rightmost.put(at, spreadX(at.get(0), kinds.size() - 1, kinds.size(), xp));
+            bySeries.computeIfAbsent(key, k -> new XYSeries(k, false, true)).add(x, at.get(1));
         }
         List<String> keys = new ArrayList<>(bySeries.keySet());
         keys.sort((a, b) -> Integer.compare(order(a, map), order(b, map)));
@@ -168,7 +191,7 @@ final class WindowMapChart {
         plot.setRenderer(1, runRenderer);
         // series drawn in legend order, so failed runs (the last series) come on top and are never hidden
         plot.setSeriesRenderingOrder(org.jfree.chart.plot.SeriesRenderingOrder.FORWARD);
-        repeatCounts(plot, runs, xp, yp);
+        repeatCounts(plot, runs, xp, yp, rightmost);
         // dataset 2: proposals
         XYSeriesCollection propData = new XYSeriesCollection();
         XYSeries ps = new XYSeries("proposals", false, true);
@@ -188,9 +211,11 @@ final class WindowMapChart {
                 ps.add((Double) vx, (Double) vy);
                 int number = p.rank() > 0 ? p.rank() : ps.getItemCount();
                 String label = " " + number + " ";
-                XYTextAnnotation t = boxed(label, (Double) vx, (Double) vy,
-                        freeAnchor(label, xp.toUnit((Double) vx), yp.toUnit((Double) vy), taken));
-                plot.addAnnotation(t);
+                double pu = xp.toUnit((Double) vx);
+                double pv = yp.toUnit((Double) vy);
+                TextAnchor anchor = freeAnchor(label, pu, pv, taken);
+                double[] at = labelPoint(anchor, pu, pv);
+                plot.addAnnotation(boxed(label, xp.fromUnit(at[0]), yp.fromUnit(at[1]), anchor));
             }
         }
         XYLineAndShapeRenderer propRenderer = markerRenderer();
@@ -331,6 +356,20 @@ final class WindowMapChart {
         return best;
     }
 
+    /**
+     * The corner point of a proposal's label: {@link #LABEL_GAP_UNITS} from the marker's centre
+     * along both axes, on the side the anchor puts the label, so the label box keeps clear of the
+     * marker's arms (the box {@link #freeAnchor} reserved).
+     *
+     * @return {x, y} in axis units (0 to 1 across the plot)
+     */
+    static double[] labelPoint(TextAnchor anchor, double ux, double uy) {
+        boolean left = anchor == TextAnchor.BOTTOM_LEFT || anchor == TextAnchor.TOP_LEFT;
+        boolean bottom = anchor == TextAnchor.BOTTOM_LEFT || anchor == TextAnchor.BOTTOM_RIGHT;
+        return new double[] {ux + (left ? LABEL_GAP_UNITS : -LABEL_GAP_UNITS),
+            uy + (bottom ? LABEL_GAP_UNITS : -LABEL_GAP_UNITS)};
+    }
+
     private static double overlap(double[] a, double[] b) {
         double w = Math.min(a[2], b[2]) - Math.max(a[0], b[0]);
         double h = Math.min(a[3], b[3]) - Math.max(a[1], b[1]);
@@ -338,15 +377,40 @@ final class WindowMapChart {
     }
 
     /**
-     * Writes "x3" beside a marker where several runs share one recipe on the map's two axes, so
-     * the count is visible though the markers coincide.
+     * Horizontal step between markers of different kinds at one recipe, as a share of the plot's
+     * width (about one marker's width on a ~700 px plot), so that no kind hides another.
      */
-    static void repeatCounts(XYPlot plot, List<Run> runs, ParameterSpec xp, ParameterSpec yp) {
+    static final double MARKER_SPREAD_UNITS = 0.016;
+
+    static List<Double> position(Run r, ParameterSpec xp, ParameterSpec yp) {
+        return List.of(r.number(xp.name()).getAsDouble(), r.number(yp.name()).getAsDouble());
+    }
+
+    /**
+     * The x at which the k-th of n marker kinds at one recipe is drawn: side by side, centred on the
+     * recipe, {@link #MARKER_SPREAD_UNITS} apart, kept inside the box.
+     */
+    static double spreadX(double x, int k, int n, ParameterSpec xp) {
+        if (n < 2) {
+            return x;
+        }
+        double u = xp.toUnit(x) + MARKER_SPREAD_UNITS * (k - (n - 1) / 2.0);
+        return xp.fromUnit(Math.max(0, Math.min(1, u)));
+    }
+
+    /**
+     * Writes "x3" beside the rightmost marker where several runs share one recipe on the map's two
+     * axes, so the count is visible though the markers coincide.
+     *
+     * @param rightmost for each recipe, the x of its rightmost marker (markers of different kinds
+     *                  are set side by side)
+     */
+    static void repeatCounts(XYPlot plot, List<Run> runs, ParameterSpec xp, ParameterSpec yp,
+                             Map<List<Double>, Double> rightmost) {
         Map<List<Double>, Integer> counts = new LinkedHashMap<>();
         for (Run r : runs) {
             if (r.number(xp.name()).isPresent() && r.number(yp.name()).isPresent()) {
-                counts.merge(List.of(r.number(xp.name()).getAsDouble(), r.number(yp.name()).getAsDouble()), 1,
-                        Integer::sum);
+                counts.merge(position(r, xp, yp), 1, Integer::sum);
             }
         }
         for (Map.Entry<List<Double>, Integer> e : counts.entrySet()) {
@@ -354,7 +418,8 @@ final class WindowMapChart {
                 continue;
             }
             org.jfree.chart.annotations.XYPointerAnnotation a = new org.jfree.chart.annotations.XYPointerAnnotation(
-                    "\u00d7" + e.getValue(), e.getKey().get(0), e.getKey().get(1), -Math.PI / 4);
+                    "\u00d7" + e.getValue(), rightmost.getOrDefault(e.getKey(), e.getKey().get(0)), e.getKey().get(1),
+                    -Math.PI / 4);
             a.setTipRadius(7);
             a.setBaseRadius(7);
             a.setArrowLength(0);
@@ -452,26 +517,21 @@ final class WindowMapChart {
         return out;
     }
 
-    /** Cell edges where the most likely class changes, as segments in data units. */
-    static List<double[]> classEdges(WindowMapResult map) {
-        List<double[]> out = new ArrayList<>();
-        if (map.classOutcome() == null) {
-            return out;
+    /**
+     * Boundaries between the most likely classes as smooth contours: marching squares over the
+     * predicted class probabilities (see {@link Contours#classBoundaries}) on the cell centres,
+     * padded like the window's edge so a boundary runs on to the box's border; polylines in data units.
+     */
+    static List<double[]> classEdges(WindowMapResult map, double[] ux, double[] uy) {
+        double[][][] p = map.classProbability();
+        if (map.classOutcome() == null || p == null) {
+            return new ArrayList<>();
         }
-        double[] xe = map.xEdges();
-        double[] ye = map.yEdges();
-        for (int j = 0; j < map.ny(); j++) {
-            for (int i = 0; i < map.nx(); i++) {
-                String c = map.likelyClassAt(i, j);
-                if (i + 1 < map.nx() && !c.equals(map.likelyClassAt(i + 1, j))) {
-                    out.add(new double[] {xe[i + 1], ye[j], xe[i + 1], ye[j + 1]});
-                }
-                if (j + 1 < map.ny() && !c.equals(map.likelyClassAt(i, j + 1))) {
-                    out.add(new double[] {xe[i], ye[j + 1], xe[i + 1], ye[j + 1]});
-                }
-            }
+        double[][][] padded = new double[p.length][][];
+        for (int k = 0; k < p.length; k++) {
+            padded[k] = padded(p[k]);
         }
-        return out;
+        return Contours.chain(toData(Contours.classBoundaries(padded, ux, uy), map.x(), map.y()));
     }
 
     static List<double[]> toData(List<double[]> unitSegments, ParameterSpec xp, ParameterSpec yp) {

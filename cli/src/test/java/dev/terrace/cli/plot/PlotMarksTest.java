@@ -66,6 +66,31 @@ class PlotMarksTest {
     }
 
     @Test
+    void runsOfDifferentKindsAtOneRecipeAreSetSideBySide() {
+        JFreeChart chart = Plots.windowMap(map, lc.runLog().runs(), List.of(), lc.campaign());
+        var runs = (org.jfree.data.xy.XYSeriesCollection) chart.getXYPlot().getDataset(1);
+        // the markers drawn on the row t_cryst = 250 degC within a few marker widths of t_drop = 250 degC
+        Map<Double, java.util.Set<String>> kindsAtX = new java.util.TreeMap<>();
+        for (int s = 0; s < runs.getSeriesCount(); s++) {
+            for (int k = 0; k < runs.getItemCount(s); k++) {
+                double x = runs.getXValue(s, k);
+                if (runs.getYValue(s, k) == 250 && Math.abs(x - 250) < 10) {
+                    kindsAtX.computeIfAbsent(x, q -> new java.util.TreeSet<>()).add((String) runs.getSeriesKey(s));
+                }
+            }
+        }
+        // the demo's eight runs there (its runs.csv) are rings and dots, none of them in spec: two kinds
+        assertEquals(java.util.Set.of(java.util.Set.of("dot, missed spec"), java.util.Set.of("ring, missed spec")),
+                new java.util.HashSet<>(kindsAtX.values()), "one kind per position: " + kindsAtX);
+        double step = map.x().fromUnit(map.x().toUnit(250) + WindowMapChart.MARKER_SPREAD_UNITS) - 250;
+        Double[] xs = kindsAtX.keySet().toArray(new Double[0]);
+        assertEquals(250, (xs[0] + xs[xs.length - 1]) / 2, 1e-9, "centred on the recipe");
+        for (int k = 1; k < xs.length; k++) {
+            assertEquals(step, xs[k] - xs[k - 1], 1e-9, "a marker's width apart");
+        }
+    }
+
+    @Test
     void proposalLabelsAvoidEachOtherAndTheEdges() {
         List<double[]> taken = new ArrayList<>();
         TextAnchor a = WindowMapChart.freeAnchor(" 1 ", 0.5, 0.5, taken);
@@ -80,6 +105,17 @@ class PlotMarksTest {
         double[] box = corner.get(0);
         assertTrue(box[0] >= 0 && box[1] >= 0 && box[2] <= 1 && box[3] <= 1, "a label at the top right corner turns"
                 + " inwards: " + java.util.Arrays.toString(box));
+        // the label is drawn at the reserved box's corner, clear of the marker's arms on both axes
+        List<double[]> one = new ArrayList<>();
+        TextAnchor c = WindowMapChart.freeAnchor(" 4 ", 0.3, 0.6, one);
+        double[] p = WindowMapChart.labelPoint(c, 0.3, 0.6);
+        double[] r = one.get(0);
+        boolean left = c == TextAnchor.BOTTOM_LEFT || c == TextAnchor.TOP_LEFT;
+        boolean bottom = c == TextAnchor.BOTTOM_LEFT || c == TextAnchor.BOTTOM_RIGHT;
+        assertEquals(left ? r[0] : r[2], p[0], 1e-12);
+        assertEquals(bottom ? r[1] : r[3], p[1], 1e-12);
+        assertEquals(WindowMapChart.LABEL_GAP_UNITS, Math.abs(p[0] - 0.3), 1e-12);
+        assertEquals(WindowMapChart.LABEL_GAP_UNITS, Math.abs(p[1] - 0.6), 1e-12);
     }
 
     @Test

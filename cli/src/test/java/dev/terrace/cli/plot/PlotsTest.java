@@ -136,11 +136,13 @@ class PlotsTest {
         List<ParityPoint> pts = List.of(new ParityPoint("gp", "D01", 33.2, 30.0, 25.0, 35.0),
                 new ParityPoint("gp", "D02", 14.8, 18.0, 12.0, 24.0),
                 new ParityPoint("physics+gp", "D01", 33.2, 32.5, 29.0, 36.0));
-        JFreeChart parity = Plots.parity("dot_diameter (nm)", false, pts);
+        JFreeChart parity = Plots.parity("dot_diameter (nm)", false, pts, "physics+gp", 20, 40);
         String svg = Plots.toSvg(parity, 700, 560);
         String text = parse(svg).getDocumentElement().getTextContent();
         assertTrue(text.contains("measured dot_diameter (nm)") && text.contains("predicted dot_diameter (nm)"));
         assertTrue(text.contains("1:1 line"));
+        assertTrue(text.contains("target band"), "the target band is in the legend");
+        assertTrue(text.contains(" D01"), "the labelled group's points carry their run ids");
         // Arrhenius: invented densities falling with temperature, E = 0.3 eV exactly
         double[] t = {450, 500, 550, 600};
         double[] n = new double[4];

@@ -225,6 +225,7 @@ public final class WindowMap {
         String classOutcome = null;
         List<String> classNames = List.of();
         String[][] likely = null;
+        double[][][] classProb = null;
         for (Target t : c.targets()) {
             if (t.isClassTarget()) {
                 OutcomeSpec o = c.outcome(t.outcome()).orElseThrow();
@@ -232,9 +233,13 @@ public final class WindowMap {
                 classNames = o.classes();
                 double[][] probs = e.classProbs().get(o.name());
                 likely = new String[n][n];
+                classProb = new double[classNames.size()][n][n];
                 for (int j = 0; j < n; j++) {
                     for (int i = 0; i < n; i++) {
                         double[] pr = probs[centre * cells + j * n + i];
+                        for (int q = 0; q < pr.length; q++) {
+                            classProb[q][j][i] = Math.max(0, Math.min(1, pr[q]));
+                        }
                         int best = 0;
                         for (int q = 1; q < pr.length; q++) {
                             if (pr[q] > pr[best]) {
@@ -248,7 +253,7 @@ public final class WindowMap {
             }
         }
         Map<String, Object> atOut = new LinkedHashMap<>(held);
-        return new WindowMapResult(xs, ys, xc, yc, avg, plain, feasible, classOutcome, classNames, likely, atOut,
+        return new WindowMapResult(xs, ys, xc, yc, avg, plain, feasible, classOutcome, classNames, likely, classProb, atOut,
                 temps.stream().map(ParameterSpec::name).toList(), robust ? temperatureUncertaintyK : 0.0,
                 share(avg), share(plain));
     }

@@ -37,6 +37,10 @@ import java.util.Objects;
  * @param classes                 that outcome's classes in campaign order (empty without one)
  * @param likelyClass             likelyClass[j][i]: the most likely class at the cell's set point, or
  *                                null when {@code classOutcome} is null
+ * @param classProbability        classProbability[k][j][i]: the predicted probability of class k (in
+ *                                {@code classes} order) at the cell's set point, each in [0, 1]; null
+ *                                when {@code classOutcome} is null. Class boundaries are drawn as
+ *                                contours of these, so they follow the model rather than cell edges
  * @param at                      the full recipe the map is drawn around: every setting in campaign
  *                                order (Double for numeric, String for categorical); the entries for
  *                                x and y give the reference point (for instance the best proposal)
@@ -49,7 +53,8 @@ import java.util.Objects;
  */
 public record WindowMapResult(ParameterSpec x, ParameterSpec y, double[] xs, double[] ys, double[][] yield,
                               double[][] plainYield, boolean[][] feasible, String classOutcome,
-                              List<String> classes, String[][] likelyClass, Map<String, Object> at,
+                              List<String> classes, String[][] likelyClass, double[][][] classProbability,
+                              Map<String, Object> at,
                               List<String> temperatureSettings, double temperatureUncertaintyK,
                               double windowFraction, double plainWindowFraction) {
 
@@ -104,8 +109,8 @@ public record WindowMapResult(ParameterSpec x, ParameterSpec y, double[] xs, dou
         feasible = f;
         classes = List.copyOf(classes);
         if (classOutcome == null) {
-            if (likelyClass != null) {
-                throw new IllegalArgumentException("likelyClass given without a class outcome");
+            if (likelyClass != null || classProbability != null) {
+                throw new IllegalArgumentException("likelyClass or classProbability given without a class outcome");
             }
         } else {
             Objects.requireNonNull(likelyClass, "likelyClass");
@@ -125,6 +130,16 @@ public record WindowMapResult(ParameterSpec x, ParameterSpec y, double[] xs, dou
                 lc[j] = likelyClass[j].clone();
             }
             likelyClass = lc;
+            Objects.requireNonNull(classProbability, "classProbability");
+            if (classProbability.length != classes.size()) {
+                throw new IllegalArgumentException("classProbability has " + classProbability.length
+                        + " classes, expected " + classes.size());
+            }
+            double[][][] cp = new double[classes.size()][][];
+            for (int k = 0; k < cp.length; k++) {
+                cp[k] = copy(classProbability[k], nx, ny, "classProbability of " + classes.get(k));
+            }
+            classProbability = cp;
         }
         at = Collections.unmodifiableMap(new LinkedHashMap<>(at));
         temperatureSettings = List.copyOf(temperatureSettings);
@@ -206,6 +221,19 @@ public record WindowMapResult(ParameterSpec x, ParameterSpec y, double[] xs, dou
         String[][] out = new String[likelyClass.length][];
         for (int j = 0; j < likelyClass.length; j++) {
             out[j] = likelyClass[j].clone();
+        }
+        return out;
+    }
+
+    /** @return classProbability[k][j][i], a copy, or null without a class outcome */
+    @Override
+    public double[][][] classProbability() {
+        if (classProbability == null) {
+            return null;
+        }
+        double[][][] out = new double[classProbability.length][][];
+        for (int k = 0; k < out.length; k++) {
+            out[k] = deepCopy(classProbability[k]);
         }
         return out;
     }

@@ -106,6 +106,9 @@ class WindowMapTest {
                 double[] p = probs[j * m.nx() + i];
                 String expected = p[0] >= p[1] ? "flat" : "rough";
                 assertEquals(expected, m.likelyClassAt(i, j), "cell " + i + "," + j);
+                // the map carries the same probabilities, which the class boundaries are contoured from
+                assertEquals(p[0], m.classProbability()[0][j][i], 1e-12, "cell " + i + "," + j);
+                assertEquals(p[1], m.classProbability()[1][j][i], 1e-12, "cell " + i + "," + j);
             }
         }
         // the invented truth is flat for anneals of about 470-610 degC and rough outside: both regions appear

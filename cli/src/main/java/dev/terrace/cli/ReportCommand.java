@@ -254,14 +254,9 @@ final class ReportCommand implements Callable<Integer> {
             hi[i] = p.hi90();
         }
         String quantity = o.outcome() + " (" + chartUnit(spec.unit().symbol()) + ")";
-        double tMin = Double.NaN;
-        double tMax = Double.NaN;
-        for (dev.terrace.core.campaign.Target t : c.targets()) {
-            if (t.outcome().equals(o.outcome()) && t.hasWindow()) {
-                tMin = t.min();
-                tMax = t.max();
-            }
-        }
+        double[] window = targetWindow(c, o.outcome());
+        double tMin = window[0];
+        double tMax = window[1];
         double bandMin = tMin;
         double bandMax = tMax;
         String labelled = chartName(Validation.PHYSICS_GP);
@@ -310,6 +305,23 @@ final class ReportCommand implements Callable<Integer> {
     static String key(String name) {
         String k = name.replaceAll("[^A-Za-z0-9]+", "-");
         return Character.isLetter(k.isEmpty() ? '0' : k.charAt(0)) ? k : "x" + k;
+    }
+
+    /**
+     * @param c       the campaign
+     * @param outcome a numeric outcome
+     * @return {min, max} of the outcome's target window (the last window target on it; NaN for an
+     *         open side or no target), for shading a chart's target band
+     */
+    static double[] targetWindow(dev.terrace.core.campaign.Campaign c, String outcome) {
+        double[] w = {Double.NaN, Double.NaN};
+        for (dev.terrace.core.campaign.Target t : c.targets()) {
+            if (t.outcome().equals(outcome) && t.hasWindow()) {
+                w[0] = t.min();
+                w[1] = t.max();
+            }
+        }
+        return w;
     }
 
     /** A unit symbol for chart text: powers as Unicode superscripts (cm^-2 as cm⁻²), degC as °C. */

@@ -116,14 +116,9 @@ final class ValidateCommand implements Callable<Integer> {
      */
     static org.jfree.chart.JFreeChart parityChart(dev.terrace.core.campaign.Campaign c, OutcomeValidation o) {
         var oc = c.outcome(o.outcome()).orElseThrow();
-        double tMin = Double.NaN;
-        double tMax = Double.NaN;
-        for (dev.terrace.core.campaign.Target t : c.targets()) {
-            if (t.outcome().equals(o.outcome()) && t.hasWindow()) {
-                tMin = t.min();
-                tMax = t.max();
-            }
-        }
+        double[] window = ReportCommand.targetWindow(c, o.outcome());
+        double tMin = window[0];
+        double tMax = window[1];
         return dev.terrace.cli.plot.Plots.parity(o.outcome() + " (" + ReportCommand.chartUnit(oc.unit().symbol())
                 + ")", o.scale().equals("log10"), o.parity(), Validation.PHYSICS_GP, tMin, tMax);
     }

@@ -483,8 +483,16 @@ public final class CampaignSurrogate {
         return o.scale() == Scale.LOG ? Math.log10(v) : v;
     }
 
-    /** The physics prediction of an outcome on its fitting scale, or NaN. */
-    static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
+    /**
+     * The growth models' prediction of a numeric outcome on its fitting scale (log10 for log
+     * outcomes), in the outcome's unit.
+     *
+     * @param c the campaign
+     * @param o a numeric outcome
+     * @param r the model chain's predictions at a recipe
+     * @return the value, or NaN when no model predicts it validly
+     */
+    public static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
         if (o.role() == null) {
             return Double.NaN;
         }

@@ -107,18 +107,7 @@ final class FoldPredictions {
 
     /** The chain's prediction of a numeric outcome on its fitting scale, or NaN. */
     static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return Double.NaN;
-        }
-        Double v = r.values().get(o.role());
-        if (v == null) {
-            return Double.NaN;
-        }
-        double inUnit = o.unit().fromCanonical(v, c.surface().monolayerHeightNm());
-        if (!Double.isFinite(inUnit) || (o.scale() == Scale.LOG && inUnit <= 0)) {
-            return Double.NaN;
-        }
-        return scaled(o, inUnit);
+        return CampaignSurrogate.priorValue(c, o, r);
     }
 
     /** The chain's class probabilities in campaign order, floored and renormalised, or null. */

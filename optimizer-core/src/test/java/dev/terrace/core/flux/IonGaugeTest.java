@@ -18,6 +18,7 @@ class IonGaugeTest {
         // Al 0.6*13/14+0.4 = 0.957143; Ga 0.6*31/14+0.4 = 1.728571; In 0.6*49/14+0.4 = 2.5;
         // As 1.814286; As2 (Z 66) 3.228571; As4 (Z 132) 6.057143; Sb 2.585714; Sb4 (Z 204) 9.142857;
         // P2 (Z 30) 1.685714; P4 (Z 60) 2.971429.
+        // check values below: worked by hand from the rule (Summers, NASA TN D-5285, 1969; atomic numbers from the periodic table)
         assertEquals(0.957143, IonGauge.relativeSensitivity(Species.Al), ROUNDING, "Al");
         assertEquals(1.728571, IonGauge.relativeSensitivity(Species.Ga), ROUNDING, "Ga");
         assertEquals(2.5, IonGauge.relativeSensitivity(Species.In), ROUNDING, "In");
@@ -60,8 +61,8 @@ class IonGaugeTest {
         double[] measured = {1.2, 1.7, 1.4, 1.7, 1.2, 1.05, 1.0, 3.8, 3.1};
         double chosen = rmsLogError(IonGauge::relativeSensitivity, z, measured);
         double other = rmsLogError(IonGauge::alternativeRelativeSensitivity, z, measured);
-        assertEquals(0.1223, chosen, 5e-4);
-        assertEquals(0.2210, other, 5e-4);
+        assertEquals(0.1223, chosen, 5e-4); // worked by hand from Summers' compiled values above
+        assertEquals(0.2210, other, 5e-4); // worked by hand from Summers' compiled values above
         assertTrue(chosen < other, "chosen " + chosen + " against " + other);
         for (int i = 0; i < z.length; i++) {
             double relativeError = Math.abs(IonGauge.relativeSensitivity(z[i]) / measured[i] - 1);
@@ -97,7 +98,7 @@ class IonGaugeTest {
         // (6.057143/1.728571) / (4.371429/1.485714) = 3.504132 / 2.942308 = 1.19095 (arithmetic done here)
         double chosen = IonGauge.relativeSensitivity(Species.As4) / IonGauge.relativeSensitivity(Species.Ga);
         double other = IonGauge.alternativeRelativeSensitivity(132) / IonGauge.alternativeRelativeSensitivity(31);
-        assertEquals(1.19095, chosen / other, 1e-5);
+        assertEquals(1.19095, chosen / other, 1e-5); // worked by hand from both forms of the rule (comment above)
     }
 
     @Test

@@ -14,12 +14,12 @@ class StudentFactorTest {
 
     @Test
     void matchesTheTableOfTQuantiles() {
-        double z = 1.644854;
-        assertEquals(2.132 / z, CampaignSurrogate.studentFactor(5), 0.0006);
-        assertEquals(1.833 / z, CampaignSurrogate.studentFactor(10), 0.0006);
-        assertEquals(1.729 / z, CampaignSurrogate.studentFactor(20), 0.0006);
-        assertEquals(1.684 / z, CampaignSurrogate.studentFactor(41), 0.0006);
-        assertEquals(1.660 / z, CampaignSurrogate.studentFactor(101), 0.0006);
+        double z = 1.644854; // z(0.95), NIST/SEMATECH e-Handbook, table 1.3.6.7.1 (normal quantiles)
+        assertEquals(2.132 / z, CampaignSurrogate.studentFactor(5), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.833 / z, CampaignSurrogate.studentFactor(10), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.729 / z, CampaignSurrogate.studentFactor(20), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.684 / z, CampaignSurrogate.studentFactor(41), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.660 / z, CampaignSurrogate.studentFactor(101), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
     }
 
     @Test

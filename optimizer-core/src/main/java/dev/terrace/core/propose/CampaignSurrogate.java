@@ -288,7 +288,7 @@ public final class CampaignSurrogate {
                 x.add(pts.get(i));
                 xRuns.add(r);
                 y.add(scaled(o, v.getAsDouble()));
-                prior.add(priorValue(c, o, chainAtRuns.get(i)));
+                prior.add(PhysicsPriors.priorValue(c, o, chainAtRuns.get(i)));
                 usedRun[i] = true;
             }
             List<Integer> censoredRuns = new ArrayList<>();
@@ -357,7 +357,7 @@ public final class CampaignSurrogate {
             List<GpCensoring.Observation> cens = new ArrayList<>();
             for (int i : censoredRuns) {
                 Censored cc = runs.get(i).censored(o.name()).orElseThrow();
-                double pv = priorValue(c, o, chainAtRuns.get(i));
+                double pv = PhysicsPriors.priorValue(c, o, chainAtRuns.get(i));
                 cens.add(new GpCensoring.Observation(pts.get(i), scaled(o, cc.bound()),
                         cc.side() == Censored.Side.ABOVE, anyPhysics ? (Double.isFinite(pv) ? pv : mean) : Double.NaN));
             }
@@ -388,7 +388,7 @@ public final class CampaignSurrogate {
                 }
                 x.add(pts.get(i));
                 labels.add(r.category(o.name()).get());
-                priors.add(classPrior(o, chainAtRuns.get(i)));
+                priors.add(PhysicsPriors.classPrior(o, chainAtRuns.get(i)));
                 usedRun[i] = true;
             }
             final double[][] pr = priors.toArray(new double[0][]);
@@ -484,72 +484,6 @@ public final class CampaignSurrogate {
     }
 
     /**
-     * The growth models' prediction of a numeric outcome on its fitting scale (log10 for log
-     * outcomes), in the outcome's unit.
-     *
-     * @param c the campaign
-     * @param o a numeric outcome
-     * @param r the model chain's predictions at a recipe
-     * @return the value, or NaN when no model predicts it validly
-     */
-    public static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return Double.NaN;
-        }
-        Double v = r.values().get(o.role());
-        if (v == null) {
-            return Double.NaN;
-        }
-        double inUnit = o.unit().fromCanonical(v, c.surface().monolayerHeightNm());
-        if (!Double.isFinite(inUnit) || (o.scale() == Scale.LOG && inUnit <= 0)) {
-            return Double.NaN;
-        }
-        return scaled(o, inUnit);
-    }
-
-    /** Class probabilities from the physics in the campaign's class order, or null (uniform). */
-    static double[] classPrior(OutcomeSpec o, ModelChain.Result r) {
-        double[] p = physicsClassProbabilities(o, r);
-        return p == null ? uniform(o.classes().size()) : p;
-    }
-
-    /**
-     * The growth models' probabilities of a class outcome's classes, in the outcome's class order,
-     * each floored at {@link ClassModel#PROBABILITY_FLOOR} (a missing or non-finite value counts as
-     * 0 before the floor) and renormalised.
-     *
-     * @param o a class outcome
-     * @param r the model chain's predictions at a recipe
-     * @return the probabilities, or null when no model predicts the outcome's role
-     */
-    public static double[] physicsClassProbabilities(OutcomeSpec o, ModelChain.Result r) {
-        if (o.role() == null) {
-            return null;
-        }
-        Map<String, Double> m = r.probabilities().get(o.role());
-        if (m == null) {
-            return null;
-        }
-        double[] p = new double[o.classes().size()];
-        double sum = 0;
-        for (int k = 0; k < p.length; k++) {
-            Double v = m.get(o.classes().get(k));
-            p[k] = Math.max(v == null || !Double.isFinite(v) ? 0 : v, ClassModel.PROBABILITY_FLOOR);
-            sum += p[k];
-        }
-        for (int k = 0; k < p.length; k++) {
-            p[k] /= sum;
-        }
-        return p;
-    }
-
-    static double[] uniform(int k) {
-        double[] p = new double[k];
-        java.util.Arrays.fill(p, 1.0 / k);
-        return p;
-    }
-
-    /**
      * Predicts a batch of points.
      *
      * @param pts the points
@@ -584,7 +518,7 @@ public final class CampaignSurrogate {
             GaussianProcess gp = gps.get(o.name());
             double[] prior = new double[pts.size()];
             for (int i = 0; i < prior.length; i++) {
-                prior[i] = priorValue(c, o, phys.get(i));
+                prior[i] = PhysicsPriors.priorValue(c, o, phys.get(i));
             }
             if (gp == null) {
                 // never measured: physics (if any) with a broad spread
@@ -616,8 +550,8 @@ public final class CampaignSurrogate {
             mean.put(o.name(), pr.mean());
             GpLeaveOneOut loo = skill.get(o.name());
             // leave-one-out calibration of the spread (GpLeaveOneOut#sdFactor), then the no-skill floor
-            // the spread's scale estimated from n runs: Student-t tails (studentFactor)
-            double tf = studentFactor(loo.runs());
+            // the spread's scale estimated from n runs: Student-t tails (StudentSpread)
+            double tf = StudentSpread.factor(loo.runs());
             double k = loo.sdFactor() * tf;
             // and the one-step-ahead errors' factor on the model's part of the spread (GpForward)
             double kl = latentFactors.get(o.name()) * tf;
@@ -636,55 +570,13 @@ public final class CampaignSurrogate {
             }
             double[][] priors = new double[pts.size()][];
             for (int i = 0; i < pts.size(); i++) {
-                priors[i] = classPrior(o, phys.get(i));
+                priors[i] = PhysicsPriors.classPrior(o, phys.get(i));
             }
             cls.put(o.name(), classModels.get(o.name()).predict(pts, priors));
         }
         double[] s = success.predict(pts);
         return new Evaluation(pts, mean, sdl, noise, cls, s, validity);
     }
-
-    /**
-     * The factor on an outcome's predictive sd that stands in for the Student-t predictive of a
-     * GP whose scale is estimated from its n runs: with a constant mean and the variance scale
-     * integrated out under their usual non-informative priors, the predictive at a new recipe is a
-     * Student t with n &minus; 1 degrees of freedom, not a normal (Santner, Williams and Notz 2003,
-     * <i>The Design and Analysis of Computer Experiments</i>, sec. 4.1.2; Handcock and Stein 1993,
-     * <i>Technometrics</i> 35:403). The normal that Terrace's yield and intervals use is widened by
-     * t<sub>0.95, n&minus;1</sub> / z<sub>0.95</sub>, so that its central 90 % interval is the t's:
-     * 1.30 at 5 runs, 1.11 at 10, 1.05 at 20, 1.02 at 40 (the quantiles: any t table, e.g.
-     * Abramowitz and Stegun 1964, table 26.10). One run keeps the single-run spread of
-     * {@link GaussianProcess} (factor 1).
-     *
-     * @param runs the measured runs of the outcome
-     * @return the factor, &ge; 1
-     */
-    public static double studentFactor(int runs) {
-        if (runs < 2) {
-            return 1;
-        }
-        if (runs > STUDENT_TABLE_RUNS) {
-            // t_0.95,nu / z_0.95 = 1 + (1 + z^2) / (4 nu) + O(nu^-2) (Cornish-Fisher; Abramowitz and Stegun 26.7.5)
-            double nu = runs - 1;
-            return 1 + (1 + Proposer.Z90 * Proposer.Z90) / (4 * nu);
-        }
-        return StudentTable.FACTOR[runs];
-    }
-
-    /** {@link #studentFactor} for 2 to {@link #STUDENT_TABLE_RUNS} runs, computed once (holder idiom). */
-    private static final class StudentTable {
-        static final double[] FACTOR = new double[STUDENT_TABLE_RUNS + 1];
-
-        static {
-            for (int n = 2; n <= STUDENT_TABLE_RUNS; n++) {
-                FACTOR[n] = new org.apache.commons.math3.distribution.TDistribution(null, n - 1, 1e-12)
-                        .inverseCumulativeProbability(0.95) / Proposer.Z90;
-            }
-        }
-    }
-
-    /** Above this many runs {@link #studentFactor} uses its first-order expansion (error below 1e-5). */
-    static final int STUDENT_TABLE_RUNS = 400;
 
     /**
      * A copy whose GPs also hold fantasy observations at their predicted means (Kriging believer,
@@ -701,7 +593,7 @@ public final class CampaignSurrogate {
         ModelChain.Result phys = chain.predict(RecipeConverter.conditions(c, space.numbers(p), space.categories(p)));
         for (Map.Entry<String, GaussianProcess> g : gps.entrySet()) {
             OutcomeSpec o = c.outcome(g.getKey()).orElseThrow();
-            double prior = priorValue(c, o, phys);
+            double prior = PhysicsPriors.priorValue(c, o, phys);
             if (!Double.isFinite(prior)) {
                 prior = priorFill.get(o.name());
             }

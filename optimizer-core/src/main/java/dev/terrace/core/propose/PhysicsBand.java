@@ -173,7 +173,7 @@ final class PhysicsBand {
         double[][] jac = new double[n][d];
         double[] f0 = new double[n];
         for (int i = 0; i < n; i++) {
-            f0[i] = CampaignSurrogate.priorValue(c, o, base.get(i));
+            f0[i] = PhysicsPriors.priorValue(c, o, base.get(i));
         }
         for (int k = 0; k < d; k++) {
             Direction dir = directions.get(k);
@@ -181,7 +181,7 @@ final class PhysicsBand {
                 if (!Double.isFinite(f0[i])) {
                     continue;
                 }
-                double f1 = CampaignSurrogate.priorValue(c, o, dir.chain().predict(conditions.get(i)));
+                double f1 = PhysicsPriors.priorValue(c, o, dir.chain().predict(conditions.get(i)));
                 double j = (f1 - f0[i]) / dir.h();
                 jac[i][k] = Double.isFinite(j) ? j : 0;
             }

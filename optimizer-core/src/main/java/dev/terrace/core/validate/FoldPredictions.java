@@ -10,6 +10,7 @@ import dev.terrace.core.fit.ModelFitter;
 import dev.terrace.core.model.ModelChain;
 import dev.terrace.core.plugins.PluginRegistry;
 import dev.terrace.core.propose.CampaignSurrogate;
+import dev.terrace.core.propose.PhysicsPriors;
 import dev.terrace.core.runlog.Run;
 import dev.terrace.core.surrogate.ClassModel;
 import dev.terrace.spi.GrowthModel;
@@ -107,12 +108,12 @@ final class FoldPredictions {
 
     /** The chain's prediction of a numeric outcome on its fitting scale, or NaN. */
     static double priorValue(Campaign c, OutcomeSpec o, ModelChain.Result r) {
-        return CampaignSurrogate.priorValue(c, o, r);
+        return PhysicsPriors.priorValue(c, o, r);
     }
 
     /** The chain's class probabilities in campaign order, floored and renormalised, or null. */
     static double[] physicsProbabilities(OutcomeSpec o, ModelChain.Result r) {
-        return CampaignSurrogate.physicsClassProbabilities(o, r);
+        return PhysicsPriors.physicsClassProbabilities(o, r);
     }
 
     /**

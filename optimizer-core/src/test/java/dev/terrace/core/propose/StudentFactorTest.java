@@ -15,20 +15,20 @@ class StudentFactorTest {
     @Test
     void matchesTheTableOfTQuantiles() {
         double z = 1.644854; // z(0.95), NIST/SEMATECH e-Handbook, table 1.3.6.7.1 (normal quantiles)
-        assertEquals(2.132 / z, CampaignSurrogate.studentFactor(5), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
-        assertEquals(1.833 / z, CampaignSurrogate.studentFactor(10), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
-        assertEquals(1.729 / z, CampaignSurrogate.studentFactor(20), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
-        assertEquals(1.684 / z, CampaignSurrogate.studentFactor(41), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
-        assertEquals(1.660 / z, CampaignSurrogate.studentFactor(101), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(2.132 / z, StudentSpread.factor(5), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.833 / z, StudentSpread.factor(10), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.729 / z, StudentSpread.factor(20), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.684 / z, StudentSpread.factor(41), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
+        assertEquals(1.660 / z, StudentSpread.factor(101), 0.0006); // NIST/SEMATECH e-Handbook, table 1.3.6.7.2
     }
 
     @Test
     void oneRunKeepsItsOwnSpreadAndLongLogsTendToTheNormal() {
-        assertEquals(1.0, CampaignSurrogate.studentFactor(1), 0);
+        assertEquals(1.0, StudentSpread.factor(1), 0);
         // the table and the first-order expansion meet at the switch: one more run moves the factor by
         // about (1 + z^2) / (4 nu^2) = 6e-6 and the expansion errs by about 5e-6
-        int n = CampaignSurrogate.STUDENT_TABLE_RUNS;
-        assertEquals(CampaignSurrogate.studentFactor(n), CampaignSurrogate.studentFactor(n + 1), 2e-5);
-        assertEquals(1.0, CampaignSurrogate.studentFactor(1_000_000), 1e-5);
+        int n = StudentSpread.TABLE_RUNS;
+        assertEquals(StudentSpread.factor(n), StudentSpread.factor(n + 1), 2e-5);
+        assertEquals(1.0, StudentSpread.factor(1_000_000), 1e-5);
     }
 }
